@@ -1,0 +1,193 @@
+package eigencheck.oracle.modes;
+
+import java.util.Arrays;
+
+/**
+ * Eigenpairs of \(-X'' = \mu^2 X\) on 0 < x < L with homogeneous conditions
+ * \(X'(0) = H_0 X(0)\) and \(X'(L) = -H_L X(L)\); H = 0 is Neumann, H = +infinity Dirichlet,
+ * 0 < H < infinity Robin with H = h/k (1/m).
+ *
+ * <p>Every mode is written \(X_n(x) = \sin(\mu_n x + \varphi_0(\mu_n))\) with
+ * \(\varphi(\mu) = \operatorname{atan2}(\mu, H) \in [0, \pi/2]\), which satisfies the condition at
+ * x = 0 for any \(\mu\); the condition at x = L then reads
+ * \(G(\mu) = \mu L + \varphi_0(\mu) + \varphi_L(\mu) = m\pi\). G is strictly increasing
+ * (\(G' = L + H_0/(H_0^2+\mu^2) + H_L/(H_L^2+\mu^2) \ge L\)), so the n-th root lies in
+ * \([(n-1)\pi/L, n\pi/L]\) and is found by safeguarded Newton iteration on that bracket; no tangent
+ * is evaluated, so Biot numbers from 1e-6 to 1e6 and beyond are equally safe. Neumann at both faces
+ * has \(\mu_n = n\pi/L\) and the zero mode X_0 = 1, handled apart.
+ * For a symmetric plane wall of half-thickness L convecting at x = ±L, the roots are those of
+ * \(\zeta\tan\zeta = \mathrm{Bi}\) (Neumann at the centre, Robin at the surface): Carslaw and
+ * Jaeger, <i>Conduction of Heat in Solids</i>, 2nd ed., Oxford, 1959, section 3.10.
+ *
+ * <p>Normalisation in closed form:
+ * \(\|X_n\|^2 = \int_0^L X_n^2 = L/2 - \cos(\mu L + 2\varphi_0)\sin(\mu L)/(2\mu)\).
+ *
+ * @since 0.1
+ */
+public final class SlabModes {
+    private final double length;
+    private final double left;
+    private final double right;
+    private double[] mu = new double[0];
+    private double[] phase = new double[0];
+    private double[] normSquared = new double[0];
+
+    /**
+     * @param length L (m)
+     * @param leftH H_0 = h/k at x = 0 (0 Neumann, +infinity Dirichlet)
+     * @param rightH H_L at x = L
+     */
+    public SlabModes(double length, double leftH, double rightH) {
+        if (!(length > 0 && length < Double.POSITIVE_INFINITY)) {
+            throw new IllegalArgumentException("length " + length + " must be finite and > 0");
+        }
+        if (!(leftH >= 0) || !(rightH >= 0)) {
+            throw new IllegalArgumentException("H = h/k must be >= 0 (0 Neumann, infinity Dirichlet)");
+        }
+        this.length = length;
+        this.left = leftH;
+        this.right = rightH;
+    }
+
+    /** True for Neumann at both faces: the constant X_0 = 1 is a mode with eigenvalue 0. */
+    public boolean hasZeroMode() {
+        return left == 0 && right == 0;
+    }
+
+    /**
+     * True when \(\mu_n = (n - \delta)\pi/L\) with a constant phase (no Robin face), so that the
+     * modes obey the angle-addition recurrence in n.
+     */
+    public boolean isUniform() {
+        return isClosedForm(left) && isClosedForm(right);
+    }
+
+    private static boolean isClosedForm(double h) {
+        return h == 0 || h == Double.POSITIVE_INFINITY;
+    }
+
+    /** Length L. */
+    public double length() {
+        return length;
+    }
+
+    /** \(\mu_n\) (1/m), n >= 1. */
+    public synchronized double mu(int n) {
+        ensure(n);
+        return mu[n - 1];
+    }
+
+    /** Phase \(\varphi_0(\mu_n)\) of \(X_n = \sin(\mu_n x + \varphi_0)\). */
+    public synchronized double phase(int n) {
+        ensure(n);
+        return phase[n - 1];
+    }
+
+    /** \(\|X_n\|^2 = \int_0^L X_n^2\,dx\) (m). */
+    public synchronized double normSquared(int n) {
+        ensure(n);
+        return normSquared[n - 1];
+    }
+
+    /** Copies of the first n roots, phases and norms: index i holds mode i+1. */
+    public synchronized double[][] first(int n) {
+        ensure(n);
+        return new double[][] {Arrays.copyOf(mu, n), Arrays.copyOf(phase, n), Arrays.copyOf(normSquared, n)};
+    }
+
+    private void ensure(int n) {
+        if (n < 1) {
+            throw new IllegalArgumentException("mode index " + n + " must be >= 1");
+        }
+        if (n <= mu.length) {
+            return;
+        }
+        int size = Math.max(n, 2 * mu.length);
+        double[] m = Arrays.copyOf(mu, size);
+        double[] p = Arrays.copyOf(phase, size);
+        double[] q = Arrays.copyOf(normSquared, size);
+        for (int i = mu.length; i < size; i++) {
+            double z = root(i + 1, left * length, right * length);
+            double muI = z / length;
+            m[i] = muI;
+            p[i] = Math.atan2(muI, left);
+            q[i] = 0.5 * length - Math.cos(z + 2 * p[i]) * Math.sin(z) / (2 * muI);
+        }
+        mu = m;
+        phase = p;
+        normSquared = q;
+    }
+
+    /**
+     * The n-th positive root z = mu L of \(z + \operatorname{atan2}(z, B_0) + \operatorname{atan2}(z, B_L) =
+     * m\pi\), with Biot numbers B = H L (0 Neumann, +infinity Dirichlet), bracketed in
+     * [(n-1) pi, n pi] (Neumann-Neumann: z = n pi).
+     *
+     * @throws IllegalArgumentException if {@code n < 1} or a Biot number is negative or NaN
+     */
+    public static double root(int n, double biotLeft, double biotRight) {
+        if (n < 1) {
+            throw new IllegalArgumentException("mode index " + n + " must be >= 1");
+        }
+        if (!(biotLeft >= 0) || !(biotRight >= 0)) {
+            throw new IllegalArgumentException("Biot numbers must be >= 0, got " + biotLeft + ", " + biotRight);
+        }
+        if (biotLeft == 0 && biotRight == 0) {
+            return n * Math.PI;
+        }
+        boolean closedLeft = isClosedForm(biotLeft);
+        boolean closedRight = isClosedForm(biotRight);
+        if (closedLeft && closedRight) {
+            // D-D: n pi; D-N or N-D: (n - 1/2) pi
+            return (biotLeft == 0 || biotRight == 0) ? (n - 0.5) * Math.PI : n * Math.PI;
+        }
+        double target = n * Math.PI;
+        double lo = (n - 1) * Math.PI;
+        double hi = n * Math.PI;
+        // start from the middle of the bracket, or the small-Biot asymptote for the first root
+        double z = 0.5 * (lo + hi);
+        for (int iteration = 0; iteration < 200; iteration++) {
+            double g = z + Math.atan2(z, biotLeft) + Math.atan2(z, biotRight) - target;
+            if (g > 0) {
+                hi = z;
+            } else if (g < 0) {
+                lo = z;
+            } else {
+                return z;
+            }
+            double dg = 1 + derivativeOfPhase(z, biotLeft) + derivativeOfPhase(z, biotRight);
+            double next = z - g / dg;
+            if (!(next > lo && next < hi)) {
+                next = 0.5 * (lo + hi);
+            }
+            if (Math.abs(next - z) <= 2 * Math.ulp(z) || hi - lo <= 2 * Math.ulp(hi)) {
+                return next;
+            }
+            z = next;
+        }
+        return z;
+    }
+
+    private static double derivativeOfPhase(double z, double biot) {
+        if (biot == Double.POSITIVE_INFINITY || biot == 0) {
+            return 0;
+        }
+        // d/dz atan2(z, B) = B/(B^2 + z^2), written to avoid overflow for large B
+        double r = z / biot;
+        return 1 / (biot * (1 + r * r));
+    }
+
+    /**
+     * Root \(\zeta_n\) of \(\zeta\tan\zeta = \mathrm{Bi}\) in \(((n-1)\pi, (n-\tfrac12)\pi)\): the plane
+     * wall of half-thickness L convecting at both faces, modes \(\cos(\zeta_n x/L)\).
+     *
+     * @param biot Bi = hL/k, L the half-thickness
+     * @throws IllegalArgumentException if {@code n < 1} or {@code biot} is not finite and > 0
+     */
+    public static double planeWallRoot(int n, double biot) {
+        if (!(biot > 0 && biot < Double.POSITIVE_INFINITY)) {
+            throw new IllegalArgumentException("Bi = " + biot + " must be finite and > 0");
+        }
+        return root(n, 0, biot);
+    }
+}
