@@ -104,6 +104,78 @@ public final class Expression {
         return root.value(arguments);
     }
 
+    /**
+     * The exact partial derivative with respect to {@code variable}, as a new expression over the
+     * same variables (symbolic differentiation on the tree). Where abs, min, max or step make the
+     * expression non-differentiable, the one-sided rule of the branch taken is used.
+     *
+     * @throws IllegalArgumentException if {@code variable} is not one of {@link #variables()}
+     */
+    public Expression derivative(String variable) {
+        int v = indexOf(variable);
+        Node d = Calculus.derivative(root, v);
+        return new Expression("d/d" + variable + "[" + source + "]", variables, d);
+    }
+
+    /**
+     * This expression with {@code variable} fixed at {@code value}, over the remaining variables in
+     * their order.
+     */
+    public Expression substitute(String variable, double value) {
+        int v = indexOf(variable);
+        List<String> rest = new java.util.ArrayList<>(variables);
+        rest.remove(v);
+        int[] map = new int[variables.size()];
+        for (int i = 0; i < map.length; i++) {
+            map[i] = i < v ? i : i - 1;
+        }
+        return new Expression("[" + source + "] at " + variable + " = " + value, List.copyOf(rest),
+            Calculus.substitute(root, v, value, map));
+    }
+
+    /**
+     * The same expression over a wider (or reordered) variable list, for example a function of x
+     * used where (x, t) are expected.
+     *
+     * @throws IllegalArgumentException if a used variable is missing from {@code newVariables}
+     */
+    public Expression over(String... newVariables) {
+        List<String> names = List.of(newVariables);
+        int[] map = new int[variables.size()];
+        for (int i = 0; i < map.length; i++) {
+            map[i] = names.indexOf(variables.get(i));
+            if (map[i] < 0 && usedVariables().contains(variables.get(i))) {
+                throw new IllegalArgumentException("expression \"" + source + "\" uses " + variables.get(i)
+                    + ", which is not among " + names);
+            }
+        }
+        return new Expression(source, names, Calculus.remap(root, map));
+    }
+
+    /** a*this + b*other over the same variables. */
+    public Expression linear(double a, Expression other, double b) {
+        if (!other.variables.equals(variables)) {
+            throw new IllegalArgumentException("variables differ: " + variables + " and " + other.variables);
+        }
+        Node n = new Node.Binary(Node.Op.ADD, new Node.Binary(Node.Op.MUL, new Node.Constant(a), root),
+            new Node.Binary(Node.Op.MUL, new Node.Constant(b), other.root));
+        return new Expression(a + "*[" + source + "] + " + b + "*[" + other.source + "]", variables, n);
+    }
+
+    /** The tree written back as text in the expression language (fully parenthesised). */
+    public String formula() {
+        return Calculus.print(root, variables);
+    }
+
+    private int indexOf(String variable) {
+        int v = variables.indexOf(variable);
+        if (v < 0) {
+            throw new IllegalArgumentException("expression \"" + source + "\" has no variable " + variable
+                + "; its variables are " + variables);
+        }
+        return v;
+    }
+
     @Override
     public String toString() {
         return source;

@@ -12,8 +12,10 @@ import java.util.Arrays;
  * x = 0 for any \(\mu\); the condition at x = L then reads
  * \(G(\mu) = \mu L + \varphi_0(\mu) + \varphi_L(\mu) = m\pi\). G is strictly increasing
  * (\(G' = L + H_0/(H_0^2+\mu^2) + H_L/(H_L^2+\mu^2) \ge L\)), so the n-th root lies in
- * \([(n-1)\pi/L, n\pi/L]\) and is found by safeguarded Newton iteration on that bracket; no tangent
- * is evaluated, so Biot numbers from 1e-6 to 1e6 and beyond are equally safe. Neumann at both faces
+ * \([(n-1)\pi/L, n\pi/L]\) and is found by safeguarded Newton iteration on that bracket, in the
+ * offset variable \(y = \mu L - (n-1)\pi\) and the complementary phases \(\operatorname{atan2}(HL, \mu L)\)
+ * so that no terms of size \(\pi\) cancel; no tangent is evaluated, so Biot numbers from 1e-6 to 1e6
+ * and beyond are equally safe. Neumann at both faces
  * has \(\mu_n = n\pi/L\) and the zero mode X_0 = 1, handled apart.
  * For a symmetric plane wall of half-thickness L convecting at x = ±L, the roots are those of
  * \(\zeta\tan\zeta = \mathrm{Bi}\) (Neumann at the centre, Robin at the surface): Carslaw and
@@ -141,31 +143,34 @@ public final class SlabModes {
             // D-D: n pi; D-N or N-D: (n - 1/2) pi
             return (biotLeft == 0 || biotRight == 0) ? (n - 0.5) * Math.PI : n * Math.PI;
         }
-        double target = n * Math.PI;
-        double lo = (n - 1) * Math.PI;
-        double hi = n * Math.PI;
-        // start from the middle of the bracket, or the small-Biot asymptote for the first root
-        double z = 0.5 * (lo + hi);
+        // Unknown y = z - (n-1) pi in [0, pi]; with psi(z) = atan2(B, z) = pi/2 - phi(z) the condition
+        // reads y = psi_0(z) + psi_L(z): no pi-sized terms cancel, so small roots keep full relative
+        // accuracy (z ~ sqrt(2 Bi) for tiny Biot numbers).
+        double offset = (n - 1) * Math.PI;
+        double lo = 0;
+        double hi = Math.PI;
+        double y = 0.5 * (lo + hi);
         for (int iteration = 0; iteration < 200; iteration++) {
-            double g = z + Math.atan2(z, biotLeft) + Math.atan2(z, biotRight) - target;
+            double z = offset + y;
+            double g = y - Math.atan2(biotLeft, z) - Math.atan2(biotRight, z);
             if (g > 0) {
-                hi = z;
+                hi = y;
             } else if (g < 0) {
-                lo = z;
+                lo = y;
             } else {
                 return z;
             }
             double dg = 1 + derivativeOfPhase(z, biotLeft) + derivativeOfPhase(z, biotRight);
-            double next = z - g / dg;
+            double next = y - g / dg;
             if (!(next > lo && next < hi)) {
                 next = 0.5 * (lo + hi);
             }
-            if (Math.abs(next - z) <= 2 * Math.ulp(z) || hi - lo <= 2 * Math.ulp(hi)) {
-                return next;
+            if (Math.abs(next - y) <= 2 * Math.ulp(y) || hi - lo <= 2 * Math.ulp(hi)) {
+                return offset + next;
             }
-            z = next;
+            y = next;
         }
-        return z;
+        return offset + y;
     }
 
     private static double derivativeOfPhase(double z, double biot) {

@@ -36,14 +36,22 @@ final class Chebyshev {
         return x;
     }
 
-    /** Coefficients from values at {@link #nodes}: c_k = (2/n) sum_j f_j cos(pi k (j+1/2)/n). */
+    /**
+     * Coefficients from values at {@link #nodes}: c_k = (2/n) sum_j f_j cos(pi k (2j+1)/(2n)), with
+     * the angle reduced exactly (integer index modulo 4n) so that rounding stays at a few ulps.
+     */
     static double[] fromValues(double[] values) {
         int n = values.length;
+        double[] table = new double[4 * n];
+        for (int m = 0; m < 4 * n; m++) {
+            table[m] = Math.cos(Math.PI * m / (2.0 * n));
+        }
         double[] c = new double[n];
         for (int k = 0; k < n; k++) {
             double s = 0;
             for (int j = 0; j < n; j++) {
-                s += values[j] * Math.cos(Math.PI * k * (j + 0.5) / n);
+                int m = (int) (((long) k * (2 * j + 1)) % (4L * n));
+                s += values[j] * table[m];
             }
             c[k] = 2.0 * s / n;
         }

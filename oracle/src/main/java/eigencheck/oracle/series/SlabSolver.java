@@ -307,7 +307,11 @@ public final class SlabSolver {
         this.deltaData = Math.max(measureTimeFit(left.data(), data[0]), measureTimeFit(right.data(), data[1]));
         // the lifting terms of F use the same data series as w, so the data enter the error only
         // through the data series' own difference to the expressions (deltaData)
-        this.deltaF = 10 * measureSource(source, sourceOnly) + sourceFit.maxTail / heatCapacity;
+        // safety factor on the sampled sup: 3 where the difference is rounding noise of the fit,
+        // 10 where it is a genuine approximation error
+        double measured = measureSource(source, sourceOnly);
+        double noise = 256 * EPS * sourceScale / heatCapacity;
+        this.deltaF = (measured <= noise ? 3 : 10) * measured + sourceFit.maxTail / heatCapacity;
         this.deltaV0 = 10 * measureInitial() + gFit.maxTail;
         this.table = new ModeTable(0, this);
     }
@@ -453,7 +457,8 @@ public final class SlabSolver {
             }
             double roundingFlux = 8 * EPS * (fluxMagnitude + qsDerivativeMagnitude
                 + Math.abs(lift[1]) + 2 * Math.abs(lift[2]) * length);
-            double representationFlux = deltaF * Math.min(2 * Math.sqrt(t / alpha), 2 * length / alpha)
+            // gradient response to a source error: int_0^t ||grad G||_1 ds <= 2 * 2 sqrt(t/(pi alpha))
+            double representationFlux = deltaF * Math.min(4 * Math.sqrt(t / (Math.PI * alpha)), 2 * length / alpha)
                 + (deltaV0 + unresolvedMass / length) / Math.sqrt(Math.PI * alpha * t) + deltaData * dataGain(t) / length;
             double muMax = n > 0 ? mu[n - 1] : 0;
             this.fluxBound = conductivity * (algebraicTail(n, 1) + exponentialTail(n, t, 1) + quadrature * muMax

@@ -1,0 +1,77 @@
+package eigencheck.oracle.problem;
+
+import eigencheck.oracle.expr.Expression;
+import java.util.EnumMap;
+import java.util.Map;
+import java.util.Objects;
+
+/**
+ * The problem a manufactured solution u(x, t) solves: source Q = rho c u_t - k u_xx, initial
+ * value u(x, 0), and face data derived exactly (symbolic differentiation of the expression tree):
+ * Dirichlet u; Neumann k du/dn (-k u_x at x = 0, k u_x at x = L); Robin ambient u + (k/h) du/dn.
+ *
+ * @since 0.1
+ */
+public final class Manufactured {
+    private Manufactured() {
+    }
+
+    /** The kind of condition to derive on a face. */
+    public enum Kind { DIRICHLET, NEUMANN, ROBIN }
+
+    /**
+     * A face request: kind and, for Robin, the heat transfer coefficient h (W/(m^2 K)).
+     *
+     * @param heatTransferCoefficient used for Robin only; ignored otherwise
+     */
+    public record Face(Kind kind, double heatTransferCoefficient) {
+        public Face {
+            Objects.requireNonNull(kind, "kind");
+        }
+
+        public static Face dirichlet() {
+            return new Face(Kind.DIRICHLET, 0);
+        }
+
+        public static Face neumann() {
+            return new Face(Kind.NEUMANN, 0);
+        }
+
+        public static Face robin(double h) {
+            return new Face(Kind.ROBIN, h);
+        }
+    }
+
+    /**
+     * The slab problem whose exact solution is {@code u}, an expression of (x, t).
+     *
+     * @throws IllegalArgumentException if u uses variables other than x and t
+     */
+    public static Problem slab(Expression u, Slab slab, Material material, Face xmin, Face xmax) {
+        Expression ux = u.over("x", "t");
+        double k = material.conductivity();
+        Expression ut = ux.derivative("t");
+        Expression uxx = ux.derivative("x").derivative("x");
+        Expression source = ut.linear(material.volumetricHeatCapacity(), uxx, -k);
+        Expression initial = ux.substitute("t", 0.0);
+        Map<Side, BoundaryCondition> boundary = new EnumMap<>(Side.class);
+        boundary.put(Side.XMIN, face(ux, 0.0, -1, xmin, k));
+        boundary.put(Side.XMAX, face(ux, slab.length(), +1, xmax, k));
+        return new Problem(slab, material, initial, source, boundary);
+    }
+
+    /** Condition at x = position with outward normal sign (du/dn = sign * u_x). */
+    private static BoundaryCondition face(Expression u, double position, int sign, Face face, double k) {
+        Expression value = u.substitute("x", position);
+        Expression normal = u.derivative("x").substitute("x", position);
+        switch (face.kind()) {
+            case DIRICHLET:
+                return new BoundaryCondition.Dirichlet(value);
+            case NEUMANN:
+                return new BoundaryCondition.Neumann(normal.linear(0, normal, sign * k));
+            default:
+                double h = face.heatTransferCoefficient();
+                return new BoundaryCondition.Robin(h, value.linear(1, normal, sign * k / h));
+        }
+    }
+}
