@@ -83,12 +83,18 @@ public final class ProblemFile {
         Map<Side, BoundaryCondition> boundary = new EnumMap<>(Side.class);
         Node boundaryNode = c.required(top, "boundary", "give one condition per side, for example"
             + " {xmin: {dirichlet: \"0\"}, xmax: {robin: {h: 25, ambient: \"20\"}}}");
-        if (boundaryNode != null && domain != null) {
+        List<Side> domainSides = domain != null ? domain.sides() : sidesOfShape(domainNode);
+        if (boundaryNode != null) {
             Node.Obj b = c.object(boundaryNode, "one condition per side");
-            if (b != null) {
-                List<String> sides = domain.sides().stream().map(Side::key).toList();
+            if (b != null && domainSides == null) {
+                // the domain is unusable: still check each condition that is there
+                for (Node n : b.fields().values()) {
+                    condition(c, n);
+                }
+            } else if (b != null) {
+                List<String> sides = domainSides.stream().map(Side::key).toList();
                 c.allowOnly(b, sides);
-                for (Side side : domain.sides()) {
+                for (Side side : domainSides) {
                     Node n = c.required(b, side.key(), "give {dirichlet: ...}, {neumann: ...} or {robin: {h, ambient}}");
                     if (n != null) {
                         BoundaryCondition bc = condition(c, n);
@@ -105,6 +111,15 @@ public final class ProblemFile {
         } catch (IllegalArgumentException e) {
             throw new InputException(InputException.Cause.INVALID_VALUE, top.location(), e.getMessage());
         }
+    }
+
+    /** The sides of the shape the domain names, even when its sizes are wrong; null if unknown. */
+    private static List<Side> sidesOfShape(Node domainNode) {
+        if (domainNode instanceof Node.Obj o && o.fields().get("shape") instanceof Node.Scalar s
+            && "slab".equals(s.value())) {
+            return List.of(Side.XMIN, Side.XMAX);
+        }
+        return null;
     }
 
     private static Domain domain(Checker c, Node n) {

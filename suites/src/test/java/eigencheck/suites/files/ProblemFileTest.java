@@ -1,0 +1,100 @@
+package eigencheck.suites.files;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertInstanceOf;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import eigencheck.adapters.InputException;
+import eigencheck.oracle.problem.BoundaryCondition;
+import eigencheck.oracle.problem.Problem;
+import eigencheck.oracle.problem.Side;
+import eigencheck.oracle.problem.Slab;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+
+class ProblemFileTest {
+    private static final Path T3 = Path.of("..", "reference-data", "problems", "nafems-t3.yaml");
+
+    @Test
+    void readsTheNafemsT3ProblemFile() throws InputException {
+        Problem p = ProblemFile.read(T3);
+        assertEquals(0.1, ((Slab) p.domain()).length());
+        assertEquals(35, p.material().conductivity());
+        assertEquals(7200 * 440.5, p.material().volumetricHeatCapacity(), 1e-6);
+        BoundaryCondition right = p.condition(Side.XMAX);
+        assertInstanceOf(BoundaryCondition.Dirichlet.class, right);
+        assertEquals(100 * Math.sin(Math.PI * 32 / 40), right.data().value(32.0), 1e-12);
+    }
+
+    private static InputException fail(String name, String text) {
+        return assertThrows(InputException.class, () -> ProblemFile.fromTree(TreeReader.parse(Path.of(name), text)));
+    }
+
+    @Test
+    void unknownBoundaryTypeIsReportedWithItsPlaceAndTheAllowedTypes() {
+        InputException e = fail("p.yaml", """
+            domain: {shape: slab, length: 0.1}
+            material: {diffusivity: 1e-5}
+            initial: "0"
+            boundary:
+              xmin: {dirichlett: "0"}
+              xmax: {neumann: "0"}
+            """);
+        InputException.Problem first = e.problems().get(0);
+        assertEquals(InputException.Cause.UNKNOWN_FIELD, first.cause());
+        assertEquals(5, first.location().line());
+        assertEquals(10, first.location().column());
+        assertEquals("boundary.xmin.dirichlett", first.location().path());
+        assertTrue(first.message().contains("did you mean \"dirichlet\""), first.message());
+    }
+
+    @Test
+    void missingMaterialAndEveryOtherProblemAreReportedTogether() {
+        InputException e = fail("p.yaml", """
+            domain: {shape: slab, length: -1}
+            initial: "0"
+            boundary:
+              xmin: {robin: {h: 0, ambient: "20"}}
+            colour: red
+            """);
+        assertEquals(5, e.problems().size(), e.getMessage());
+        assertTrue(e.problems().stream().anyMatch(p -> p.cause() == InputException.Cause.MISSING
+            && p.location().path().equals("material")), e.getMessage());
+        assertTrue(e.problems().stream().anyMatch(p -> p.location().path().equals("boundary.xmax")), e.getMessage());
+        assertTrue(e.problems().stream().anyMatch(p -> p.location().path().equals("colour")), e.getMessage());
+        assertTrue(e.problems().stream().anyMatch(p -> p.location().path().equals("domain.length")
+            && p.cause() == InputException.Cause.OUT_OF_RANGE), e.getMessage());
+        assertTrue(e.problems().stream().anyMatch(p -> p.location().path().equals("boundary.xmin.robin.h")),
+            e.getMessage());
+    }
+
+    @Test
+    void expressionTypoPointsAtTheColumnInsideTheFile() {
+        InputException e = fail("p.json", """
+            {"domain": {"shape": "slab", "length": 0.1},
+             "material": {"conductivity": 35, "volumetricHeatCapacity": 3.17e6},
+             "initial": "20 + 5*sni(x)",
+             "boundary": {"xmin": {"dirichlet": "0"}, "xmax": {"dirichlet": "0"}}}
+            """);
+        InputException.Problem p = e.problems().get(0);
+        assertEquals(InputException.Cause.BAD_EXPRESSION, p.cause());
+        assertEquals(3, p.location().line());
+        // the string's content starts at column 14; "sni" is at column 8 of the expression
+        assertEquals(14 + 7, p.location().column());
+        assertTrue(p.message().contains("unknown function \"sni\""), p.message());
+    }
+
+    @Test
+    void malformedYamlAndShapesOfLaterVersionsAreReported() {
+        assertEquals(InputException.Cause.MALFORMED, fail("p.yaml", "domain: [1\n").cause());
+        InputException e = fail("p.yaml", """
+            domain: {shape: sphere, radius: 1}
+            material: {diffusivity: 1}
+            initial: "0"
+            boundary: {surface: {dirichlet: "0"}}
+            """);
+        assertTrue(e.getMessage().contains("not solved by this version yet"), e.getMessage());
+        assertTrue(fail("p.yaml", "domain: {shape: slap, length: 1}\n").getMessage().contains("did you mean \"slab\""));
+    }
+}
