@@ -8,7 +8,6 @@ import eigencheck.oracle.problem.Problem;
 import eigencheck.suites.files.ProblemFile;
 import java.io.IOException;
 import java.io.Reader;
-import java.io.StringWriter;
 import java.io.Writer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -22,7 +21,6 @@ import java.util.TreeMap;
 import java.util.concurrent.Callable;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
-import org.apache.commons.csv.CSVPrinter;
 import org.apache.commons.csv.CSVRecord;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
@@ -66,6 +64,7 @@ final class EvalCommand implements Callable<Integer> {
             default -> throw new picocli.CommandLine.ParameterException(spec.commandLine(),
                 "--quantity " + quantity + " is not known; use temperature or flux");
         };
+        long start = System.nanoTime();
         Problem problem = ProblemFile.read(problemFile);
         List<String> coordinates = problem.domain().coordinates();
         Points points = readPoints(pointsFile, coordinates);
@@ -73,7 +72,9 @@ final class EvalCommand implements Callable<Integer> {
         for (double t : points.t) {
             horizon = Math.max(horizon, t);
         }
+        long read = System.nanoTime();
         Oracle oracle = Oracle.prepare(problem, horizon, tolerance);
+        long prepared = System.nanoTime();
         int n = points.t.length;
         double[] value = new double[n];
         double[] bound = new double[n];
@@ -86,24 +87,25 @@ final class EvalCommand implements Callable<Integer> {
             throw new OracleException(e.reason(), pointsFile + ":" + points.line[index] + ": "
                 + message.substring(colon + 2));
         }
+        long evaluated = System.nanoTime();
         String valueColumn = q == Oracle.Quantity.TEMPERATURE ? "u" : "flux";
-        StringWriter text = new StringWriter();
-        List<String> header = new ArrayList<>(coordinates);
-        header.add("t");
-        header.add(valueColumn);
-        header.add("bound");
-        try (CSVPrinter printer = new CSVPrinter(text, CSVFormat.DEFAULT.builder()
-            .setHeader(header.toArray(String[]::new)).setRecordSeparator("\n").get())) {
-            for (int i = 0; i < n; i++) {
-                printer.printRecord(repr(points.x[i]), repr(points.t[i]), repr(value[i]), String.format(Locale.ROOT,
-                    "%.3e", bound[i]));
-            }
+        // numbers never need CSV quoting: one StringBuilder is several times faster than a printer
+        StringBuilder text = new StringBuilder(n * 64);
+        text.append(String.join(",", coordinates)).append(",t,").append(valueColumn).append(",bound\n");
+        for (int i = 0; i < n; i++) {
+            text.append(points.x[i]).append(',').append(points.t[i]).append(',').append(value[i]).append(',')
+                .append(bound[i]).append('\n');
+        }
+        if (Boolean.getBoolean("eigencheck.debug")) {
+            spec.commandLine().getErr().printf(Locale.ROOT, "eval: read %.0f ms, prepare %.0f ms, evaluate %.0f ms,"
+                + " format %.0f ms%n", (read - start) / 1e6, (prepared - read) / 1e6, (evaluated - prepared) / 1e6,
+                (System.nanoTime() - evaluated) / 1e6);
         }
         if (out == null) {
             spec.commandLine().getOut().print(text);
             spec.commandLine().getOut().flush();
         } else {
-            writeAtomically(out, text.toString());
+            writeAtomically(out, text);
             double worst = 0;
             for (double b : bound) {
                 worst = Math.max(worst, b);
@@ -114,19 +116,14 @@ final class EvalCommand implements Callable<Integer> {
         return Main.OK;
     }
 
-    /** Shortest text that reads back to the same double. */
-    private static String repr(double v) {
-        return Double.toString(v);
-    }
-
-    static void writeAtomically(Path target, String content) throws IOException {
+    static void writeAtomically(Path target, CharSequence content) throws IOException {
         Path dir = target.toAbsolutePath().getParent();
         if (dir != null) {
             Files.createDirectories(dir);
         }
         Path tmp = Files.createTempFile(dir, ".eigencheck-", ".tmp");
         try (Writer w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
-            w.write(content);
+            w.append(content);
         }
         try {
             Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
@@ -148,7 +145,7 @@ final class EvalCommand implements Callable<Integer> {
         List<double[]> rows = new ArrayList<>();
         List<Integer> lines = new ArrayList<>();
         CSVFormat format = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true)
-            .setCommentMarker('#').setIgnoreSurroundingSpaces(true).setIgnoreEmptyLines(true).get();
+            .setCommentMarker('#').setIgnoreEmptyLines(true).setTrim(true).get();
         try (Reader reader = Files.newBufferedReader(file, StandardCharsets.UTF_8);
              CSVParser parser = CSVParser.parse(reader, format)) {
             Map<String, Integer> columns = new TreeMap<>(String.CASE_INSENSITIVE_ORDER);
