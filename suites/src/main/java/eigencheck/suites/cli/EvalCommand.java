@@ -89,12 +89,24 @@ final class EvalCommand implements Callable<Integer> {
         }
         long evaluated = System.nanoTime();
         String valueColumn = q == Oracle.Quantity.TEMPERATURE ? "u" : "flux";
-        // numbers never need CSV quoting: one StringBuilder is several times faster than a printer
-        StringBuilder text = new StringBuilder(n * 64);
+        // x and t are echoed as the user wrote them; rows are formatted in parallel blocks
+        int blocks = Math.max(1, Math.min(64, n / 20_000));
+        StringBuilder[] parts = new StringBuilder[blocks];
+        java.util.stream.IntStream.range(0, blocks).parallel().forEach(block -> {
+            int from = (int) ((long) n * block / blocks);
+            int to = (int) ((long) n * (block + 1) / blocks);
+            StringBuilder b = new StringBuilder((to - from) * 48);
+            for (int i = from; i < to; i++) {
+                b.append(points.xText[i]).append(',').append(points.tText[i]).append(',').append(value[i]).append(',');
+                appendBound(b, bound[i]);
+                b.append('\n');
+            }
+            parts[block] = b;
+        });
+        StringBuilder text = new StringBuilder();
         text.append(String.join(",", coordinates)).append(",t,").append(valueColumn).append(",bound\n");
-        for (int i = 0; i < n; i++) {
-            text.append(points.x[i]).append(',').append(points.t[i]).append(',').append(value[i]).append(',')
-                .append(bound[i]).append('\n');
+        for (StringBuilder part : parts) {
+            text.append(part);
         }
         if (Boolean.getBoolean("eigencheck.debug")) {
             spec.commandLine().getErr().printf(Locale.ROOT, "eval: read %.0f ms, prepare %.0f ms, evaluate %.0f ms,"
@@ -116,6 +128,26 @@ final class EvalCommand implements Callable<Integer> {
         return Main.OK;
     }
 
+    /** A bound with three significant digits, for example 2.85e-10 (bounds need no more). */
+    static void appendBound(StringBuilder b, double bound) {
+        if (!(bound > 0)) {
+            b.append('0');
+            return;
+        }
+        int exponent = (int) Math.floor(Math.log10(bound));
+        long mantissa = Math.round(bound / Math.pow(10, exponent - 2));
+        if (mantissa >= 1000) {
+            mantissa /= 10;
+            exponent++;
+        }
+        b.append(mantissa / 100).append('.');
+        long rest = mantissa % 100;
+        if (rest < 10) {
+            b.append('0');
+        }
+        b.append(rest).append('e').append(exponent);
+    }
+
     static void writeAtomically(Path target, CharSequence content) throws IOException {
         Path dir = target.toAbsolutePath().getParent();
         if (dir != null) {
@@ -132,8 +164,8 @@ final class EvalCommand implements Callable<Integer> {
         }
     }
 
-    /** Points read from a CSV file, with the line of each. */
-    record Points(double[] x, double[] t, int[] line) {
+    /** Points read from a CSV file, with the line and the original text of each. */
+    record Points(double[] x, double[] t, int[] line, String[] xText, String[] tText) {
     }
 
     static Points readPoints(Path file, List<String> coordinates) throws InputException {
@@ -141,18 +173,23 @@ final class EvalCommand implements Callable<Integer> {
             throw new InputException(InputException.Cause.UNREADABLE, InputLocation.of(file),
                 "no such file; check the path of --points");
         }
-        List<InputException.Problem> problems = new ArrayList<>();
-        List<double[]> rows = new ArrayList<>();
+        if (coordinates.size() != 1) {
+            throw new InputException(InputException.Cause.INVALID_VALUE, InputLocation.of(file),
+                "this version evaluates slabs only (columns x,t)");
+        }
+        List<String> needed = new ArrayList<>(coordinates);
+        needed.add("t");
+        List<String> xs = new ArrayList<>();
+        List<String> ts = new ArrayList<>();
         List<Integer> lines = new ArrayList<>();
+        List<InputException.Problem> problems = new ArrayList<>();
+        int[] index = new int[needed.size()];
         CSVFormat format = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true)
             .setCommentMarker('#').setIgnoreEmptyLines(true).setTrim(true).get();
         try (Reader reader = Files.newBufferedReader(file, StandardCharsets.UTF_8);
              CSVParser parser = CSVParser.parse(reader, format)) {
             Map<String, Integer> columns = new TreeMap<>(String.CASE_INSENSITIVE_ORDER);
             columns.putAll(parser.getHeaderMap());
-            List<String> needed = new ArrayList<>(coordinates);
-            needed.add("t");
-            int[] index = new int[needed.size()];
             for (int j = 0; j < needed.size(); j++) {
                 Integer i = columns.get(needed.get(j));
                 if (i == null) {
@@ -166,76 +203,77 @@ final class EvalCommand implements Callable<Integer> {
             if (!problems.isEmpty()) {
                 throw new InputException(problems);
             }
+            int width = Math.max(index[0], index[1]) + 1;
             for (CSVRecord record : parser) {
                 int line = (int) parser.getCurrentLineNumber();
-                double[] row = new double[needed.size()];
-                boolean good = true;
-                for (int j = 0; j < needed.size(); j++) {
-                    int i = index[j];
-                    String name = needed.get(j);
-                    if (i >= record.size()) {
-                        problems.add(new InputException.Problem(InputException.Cause.MISSING,
-                            InputLocation.at(file, line, i + 1, ""), "column \"" + name + "\" is missing on this row (it has "
-                                + record.size() + " fields); give every row all columns"));
-                        good = false;
-                        continue;
+                if (record.size() < width) {
+                    problems.add(new InputException.Problem(InputException.Cause.MISSING, InputLocation.at(file, line, 0, ""),
+                        "the row has " + record.size() + " fields, fewer than the header's columns " + needed
+                            + " need; give every row all columns"));
+                    if (problems.size() >= 20) {
+                        break;
                     }
-                    String cell = record.get(i);
-                    double v;
-                    try {
-                        v = Double.parseDouble(cell);
-                    } catch (NumberFormatException e) {
-                        problems.add(new InputException.Problem(InputException.Cause.NOT_A_NUMBER,
-                            InputLocation.at(file, line, i + 1, ""), "column \"" + name + "\": \"" + cell
-                                + "\" is not a number; write plain decimal numbers such as 0.05 or 1e-3"));
-                        good = false;
-                        continue;
-                    }
-                    if (!Double.isFinite(v)) {
-                        problems.add(new InputException.Problem(InputException.Cause.NOT_A_NUMBER,
-                            InputLocation.at(file, line, i + 1, ""), "column \"" + name + "\": " + cell
-                                + " is not finite; give finite numbers"));
-                        good = false;
-                    } else if (name.equals("t") && v < 0) {
-                        problems.add(new InputException.Problem(InputException.Cause.OUT_OF_RANGE,
-                            InputLocation.at(file, line, i + 1, ""), "t = " + cell + " s is negative; times must be >= 0"));
-                        good = false;
-                    }
-                    row[j] = v;
+                    continue;
                 }
-                if (good) {
-                    rows.add(row);
-                    lines.add(line);
-                }
-                if (problems.size() >= 20) {
-                    break;
-                }
+                xs.add(record.get(index[0]));
+                ts.add(record.get(index[1]));
+                lines.add(line);
             }
         } catch (IOException | IllegalArgumentException | IllegalStateException e) {
             String message = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
-            problems.add(new InputException.Problem(e instanceof IOException && !(e.getCause() != null)
-                ? InputException.Cause.UNREADABLE : InputException.Cause.MALFORMED, InputLocation.of(file),
+            problems.add(new InputException.Problem(InputException.Cause.MALFORMED, InputLocation.of(file),
                 "cannot read the points: " + message));
+        }
+        int n = xs.size();
+        String[] xText = xs.toArray(String[]::new);
+        String[] tText = ts.toArray(String[]::new);
+        double[] x = new double[n];
+        double[] t = new double[n];
+        boolean[] bad = new boolean[n];
+        java.util.stream.IntStream.range(0, n).parallel().forEach(i -> {
+            x[i] = parse(xText[i]);
+            t[i] = parse(tText[i]);
+            bad[i] = !Double.isFinite(x[i]) || !(t[i] >= 0) || !Double.isFinite(t[i]);
+        });
+        int[] line = new int[n];
+        for (int i = 0; i < n; i++) {
+            line[i] = lines.get(i);
+            if (bad[i] && problems.size() < 20) {
+                String[] cells = {xText[i], tText[i]};
+                double[] values = {x[i], t[i]};
+                for (int j = 0; j < 2; j++) {
+                    InputLocation at = InputLocation.at(file, line[i], index[j] + 1, "");
+                    String name = needed.get(j);
+                    if (Double.isNaN(values[j]) && !cells[j].equalsIgnoreCase("nan")) {
+                        problems.add(new InputException.Problem(InputException.Cause.NOT_A_NUMBER, at, "column \""
+                            + name + "\": \"" + cells[j] + "\" is not a number; write plain decimal numbers such as"
+                            + " 0.05 or 1e-3"));
+                    } else if (!Double.isFinite(values[j])) {
+                        problems.add(new InputException.Problem(InputException.Cause.NOT_A_NUMBER, at, "column \""
+                            + name + "\": " + cells[j] + " is not finite; give finite numbers"));
+                    } else if (j == 1 && values[j] < 0) {
+                        problems.add(new InputException.Problem(InputException.Cause.OUT_OF_RANGE, at, "t = " + cells[j]
+                            + " s is negative; times must be >= 0"));
+                    }
+                }
+            }
         }
         if (!problems.isEmpty()) {
             throw new InputException(problems);
         }
-        if (rows.isEmpty()) {
+        if (n == 0) {
             throw new InputException(InputException.Cause.MISSING, InputLocation.of(file),
                 "no points; add rows below the header");
         }
-        if (coordinates.size() != 1) {
-            throw new InputException(InputException.Cause.INVALID_VALUE, InputLocation.of(file),
-                "this version evaluates slabs only (columns x,t)");
+        return new Points(x, t, line, xText, tText);
+    }
+
+    /** Double.parseDouble, with NaN for text that is not a number (reported by the caller). */
+    private static double parse(String text) {
+        try {
+            return Double.parseDouble(text);
+        } catch (NumberFormatException e) {
+            return Double.NaN;
         }
-        double[] x = new double[rows.size()];
-        double[] t = new double[rows.size()];
-        int[] line = new int[rows.size()];
-        for (int i = 0; i < rows.size(); i++) {
-            x[i] = rows.get(i)[0];
-            t[i] = rows.get(i)[1];
-            line[i] = lines.get(i);
-        }
-        return new Points(x, t, line);
     }
 }
