@@ -1,0 +1,21 @@
+package eigencheck.suites.norms;
+
+/**
+ * The exact solution at one time, for many points at once: values and gradients at points given
+ * with three coordinates each.
+ *
+ * @since 0.1
+ */
+public interface Reference {
+    /**
+     * @param xyz flat, 3 coordinates per point
+     * @param value receives u at each point
+     * @param gradient receives grad u (3 per point), or null when not needed
+     */
+    void evaluate(double[] xyz, double[] value, double[] gradient);
+
+    /** Exact mean over the segment [a, b] along the problem's axis, or NaN if the reference has none. */
+    default double segmentAverage(double a, double b) {
+        return Double.NaN;
+    }
+}

@@ -1,0 +1,214 @@
+package eigencheck.suites.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.junit.jupiter.api.BeforeEach;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * compare against cases with closed-form norms (common practice, the interpolation error of a
+ * quadratic): the problem u_t = u_xx + 2 on 0 < x < 1 with u = 0 at both faces and u(x,0) = x(1-x)
+ * is at its steady state, u = x(1-x), for all t. The P1 interpolant on a uniform mesh of spacing h
+ * is exact at the nodes, and its error e = (x-a)(b-x) on each element gives
+ * ||e||_L2 = h^2/sqrt(30) and |e|_H1 = h/sqrt(3) on the unit interval.
+ */
+class CompareCommandTest {
+    @TempDir
+    Path dir;
+    Path problem;
+
+    @BeforeEach
+    void writeProblem() throws IOException {
+        problem = dir.resolve("steady.yaml");
+        Files.writeString(problem, """
+            domain: {shape: slab, length: 1}
+            material: {diffusivity: 1}
+            initial: "x*(1-x)"
+            source: "2"
+            boundary: {xmin: {dirichlet: "0"}, xmax: {dirichlet: "0"}}
+            """);
+    }
+
+    private record Run(int code, String out, String err) {
+    }
+
+    private static Run run(String... args) {
+        StringWriter out = new StringWriter();
+        StringWriter err = new StringWriter();
+        int code = Main.run(args, new PrintWriter(out, true), new PrintWriter(err, true));
+        return new Run(code, out.toString(), err.toString());
+    }
+
+    private static double u(double x) {
+        return x * (1 - x);
+    }
+
+    private JsonNode json(Path output, String... more) throws IOException {
+        String[] args = new String[5 + more.length];
+        args[0] = "compare";
+        args[1] = problem.toString();
+        args[2] = output.toString();
+        args[3] = "--json";
+        args[4] = "--time=0.5";
+        System.arraycopy(more, 0, args, 5, more.length);
+        Run r = run(args);
+        assertEquals(0, r.code, r.err);
+        return new ObjectMapper().readTree(r.out);
+    }
+
+    @Test
+    void linearElementsOnALineGiveTheClosedFormNorms() throws IOException {
+        int n = 8;
+        double h = 1.0 / n;
+        StringBuilder vtk = new StringBuilder("# vtk DataFile Version 3.0\nline\nASCII\nDATASET UNSTRUCTURED_GRID\nPOINTS "
+            + (n + 1) + " double\n");
+        for (int i = 0; i <= n; i++) {
+            vtk.append(i * h).append(" 0 0\n");
+        }
+        vtk.append("CELLS ").append(n).append(' ').append(3 * n).append('\n');
+        for (int i = 0; i < n; i++) {
+            vtk.append("2 ").append(i).append(' ').append(i + 1).append('\n');
+        }
+        vtk.append("CELL_TYPES ").append(n).append('\n');
+        vtk.append("3\n".repeat(n));
+        vtk.append("POINT_DATA ").append(n + 1).append("\nSCALARS T double 1\nLOOKUP_TABLE default\n");
+        for (int i = 0; i <= n; i++) {
+            vtk.append(u(i * h)).append('\n');
+        }
+        Path out = dir.resolve("p1.vtk");
+        Files.writeString(out, vtk);
+        JsonNode r = json(out);
+        assertEquals(n + 1, r.get("points").asInt());
+        assertTrue(r.get("max").asDouble() < 1e-14, "nodal values are exact: the nodal error hides the error");
+        // tolerance: the oracle's bound (1e-10 of the scale 0.25) plus quadrature rounding
+        assertEquals(h * h / Math.sqrt(30), r.get("l2").asDouble(), 1e-10);
+        assertEquals(h / Math.sqrt(3), r.get("h1semi").asDouble(), 1e-10);
+        Run text = run("compare", problem.toString(), out.toString(), "--time", "0.5");
+        assertTrue(text.out.contains("l2      " + String.format(java.util.Locale.ROOT, "%.6e", h * h / Math.sqrt(30))),
+            text.out);
+    }
+
+    @Test
+    void triangleMeshOfABlockGivesTheOneDimensionalNormsTimesTheHeight() throws IOException {
+        // P1 on triangles whose vertices lie on the lines x = ih interpolates u(x) linearly in x on
+        // each triangle, so ||e||^2 = H * h^4/30 and |e|_H1^2 = H * h^2/3 for a block of height H.
+        int nx = 6;
+        int ny = 3;
+        double h = 1.0 / nx;
+        double height = 0.5;
+        JsonNode r = json(triangles(nx, ny, height, false));
+        assertEquals(Math.sqrt(height) * h * h / Math.sqrt(30), r.get("l2").asDouble(), 1e-10);
+        assertEquals(Math.sqrt(height) * h / Math.sqrt(3), r.get("h1semi").asDouble(), 1e-10);
+        // quadratic triangles reproduce a quadratic exactly: the norms vanish to rounding
+        JsonNode p2 = json(triangles(nx, ny, height, true));
+        assertTrue(p2.get("l2").asDouble() < 1e-11, p2.toString());
+        assertTrue(p2.get("h1semi").asDouble() < 1e-10, p2.toString());
+    }
+
+    /** A structured triangle mesh written as JSON in eigencheck's own layout, P1 or P2 (six nodes). */
+    private Path triangles(int nx, int ny, double height, boolean quadratic) throws IOException {
+        int px = quadratic ? 2 * nx + 1 : nx + 1;
+        int py = quadratic ? 2 * ny + 1 : ny + 1;
+        StringBuilder pts = new StringBuilder();
+        StringBuilder vals = new StringBuilder();
+        for (int j = 0; j < py; j++) {
+            for (int i = 0; i < px; i++) {
+                double x = (double) i / (px - 1);
+                double y = height * j / (py - 1);
+                pts.append(pts.length() == 0 ? "" : ",").append('[').append(x).append(',').append(y).append(']');
+                vals.append(vals.length() == 0 ? "" : ",").append(u(x));
+            }
+        }
+        StringBuilder types = new StringBuilder();
+        StringBuilder conn = new StringBuilder();
+        int s = quadratic ? 2 : 1;
+        for (int j = 0; j < ny; j++) {
+            for (int i = 0; i < nx; i++) {
+                int a = (s * j) * px + s * i;
+                int b = a + s;
+                int c = a + s * px + s;
+                int d = a + s * px;
+                int[][] tris = {{a, b, c}, {a, c, d}};
+                for (int[] t : tris) {
+                    types.append(types.length() == 0 ? "" : ",").append(quadratic ? 22 : 5);
+                    conn.append(conn.length() == 0 ? "" : ",").append('[').append(t[0]).append(',').append(t[1])
+                        .append(',').append(t[2]);
+                    if (quadratic) {
+                        conn.append(',').append(mid(t[0], t[1], px)).append(',').append(mid(t[1], t[2], px)).append(',')
+                            .append(mid(t[2], t[0], px));
+                    }
+                    conn.append(']');
+                }
+            }
+        }
+        Path out = dir.resolve(quadratic ? "p2.json" : "p1.json");
+        Files.writeString(out, "{\"points\": [" + pts + "], \"cells\": {\"types\": [" + types + "], \"connectivity\": ["
+            + conn + "]}, \"pointData\": {\"T\": [" + vals + "]}}");
+        return out;
+    }
+
+    private static int mid(int p, int q, int px) {
+        int ip = p % px;
+        int jp = p / px;
+        int iq = q % px;
+        int jq = q / px;
+        return ((jp + jq) / 2) * px + (ip + iq) / 2;
+    }
+
+    @Test
+    void cellDataAreComparedWithExactCellAverages() throws IOException {
+        // mean of x(1-x) over [a, b]: (b^2 - a^2)/2 - (b^3 - a^3)/3, divided by (b - a) (calculus)
+        int n = 5;
+        StringBuilder csvPoints = new StringBuilder();
+        StringBuilder conn = new StringBuilder();
+        StringBuilder types = new StringBuilder();
+        StringBuilder values = new StringBuilder();
+        for (int i = 0; i <= n; i++) {
+            csvPoints.append(i == 0 ? "" : ",").append((double) i / n);
+        }
+        double planted = 1e-3;
+        for (int i = 0; i < n; i++) {
+            double a = (double) i / n;
+            double b = (double) (i + 1) / n;
+            double mean = ((b * b - a * a) / 2 - (b * b * b - a * a * a) / 3) / (b - a);
+            conn.append(i == 0 ? "" : ",").append('[').append(i).append(',').append(i + 1).append(']');
+            types.append(i == 0 ? "" : ",").append(3);
+            values.append(i == 0 ? "" : ",").append(mean + (i == 2 ? planted : 0));
+        }
+        Path out = dir.resolve("fv.json");
+        Files.writeString(out, "{\"x\": [" + csvPoints + "], \"cells\": {\"types\": [" + types + "], \"connectivity\": ["
+            + conn + "]}, \"cellData\": {\"T\": [" + values + "]}}");
+        JsonNode r = json(out);
+        assertEquals(n, r.get("points").asInt());
+        assertEquals(planted, r.get("max").asDouble(), 1e-12);
+        assertEquals(planted * Math.sqrt(1.0 / n), r.get("l2").asDouble(), 1e-12, "sqrt(|K|) times the planted error");
+        assertTrue(r.get("h1semi").isNull());
+    }
+
+    @Test
+    void pointsWithoutCellsGiveNodalNormsOnlyAndBadOutputsAreNamed() throws IOException {
+        Path csv = dir.resolve("nodes.csv");
+        Files.writeString(csv, "x,T\n0,0\n500,0.26\n1000,0\n");
+        JsonNode r = json(csv, "--unit", "x=mm");
+        assertEquals(3, r.get("points").asInt());
+        assertEquals(0.01, r.get("max").asDouble(), 1e-12);
+        assertTrue(r.get("l2").isNull());
+        Run outside = run("compare", problem.toString(), csv.toString(), "--time", "0.5");
+        assertEquals(2, outside.code);
+        assertTrue(outside.err.contains("outside the slab") && outside.err.contains("--unit x=mm"), outside.err);
+        Path noTime = dir.resolve("n.csv");
+        Files.writeString(noTime, "x,T\n0,0\n1,0\n");
+        Run missing = run("compare", problem.toString(), noTime.toString());
+        assertEquals(2, missing.code);
+        assertTrue(missing.err.contains("--time"), missing.err);
+    }
+}
