@@ -166,7 +166,8 @@ public final class CsvFieldReader implements FieldReader {
                 }
             }
             int dimension = coordinateColumns.size();
-            int expectedRows = (int) Math.min(Integer.MAX_VALUE - 16, size / Math.max(4, 8L * header.size()) + 16);
+            // rows rarely take less than 5 bytes a column: no growth (and no copy) for typical files
+            int expectedRows = (int) Math.min(Integer.MAX_VALUE - 16, size / Math.max(4, 5L * header.size()) + 16);
             Levels levels = new Levels(dimension, dataColumns.size(), expectedRows);
             int needed = header.size();
             double[] row = new double[needed];
@@ -296,8 +297,8 @@ public final class CsvFieldReader implements FieldReader {
                 double[] c = level.coordinates.toArray();
                 int[] dup = Duplicates.find(c, dimension);
                 if (dup != null) {
-                    throw new InputException(Cause.INVALID_VALUE, InputLocation.at(file, (int) level.lines.get(dup[1]), 0,
-                        ""), "this row repeats the point of line " + (int) level.lines.get(dup[0])
+                    throw new InputException(Cause.INVALID_VALUE, InputLocation.at(file, level.lines.get(dup[1]), 0,
+                        ""), "this row repeats the point of line " + level.lines.get(dup[0])
                         + (Double.isNaN(level.time) ? "" : " at t = " + level.time)
                         + "; each point once per time level (a time column missing from the options?)");
                 }
@@ -315,7 +316,7 @@ public final class CsvFieldReader implements FieldReader {
         final double time;
         final DoubleList coordinates;
         final DoubleList[] data;
-        final DoubleList lines;
+        final eigencheck.adapters.internal.IntList lines;
 
         Level(double time, int dimension, int arrays, int capacity) {
             this.time = time;
@@ -324,7 +325,7 @@ public final class CsvFieldReader implements FieldReader {
             for (int k = 0; k < arrays; k++) {
                 data[k] = new DoubleList(capacity);
             }
-            this.lines = new DoubleList(capacity);
+            this.lines = new eigencheck.adapters.internal.IntList(capacity);
         }
     }
 }

@@ -348,7 +348,7 @@ public final class VtuReader implements FieldReader {
             double[] v;
             switch (format) {
                 case "ascii" -> v = ascii(a, n, what);
-                case "binary" -> v = convert(inlineBinary(a, what), type, size, n, a, what);
+                case "binary" -> v = convert(ByteBuffer.wrap(inlineBinary(a, what)), type, size, n, a, what);
                 case "appended" -> v = convert(appended(a, what), type, size, n, a, what);
                 default -> throw error(a.line, a.column, what + ": format \"" + format + "\"; expected ascii, binary or"
                     + " appended");
@@ -504,7 +504,8 @@ public final class VtuReader implements FieldReader {
             return out;
         }
 
-        private byte[] appended(ArrayElement a, String what) throws InputException {
+        /** The array's bytes: a view into the file for raw uncompressed data, else a decoded copy. */
+        private ByteBuffer appended(ArrayElement a, String what) throws InputException {
             if (appendedStart < 0) {
                 throw error(a.line, a.column, what + ": format=\"appended\" but the file has no AppendedData");
             }
@@ -524,7 +525,7 @@ public final class VtuReader implements FieldReader {
                     end++;
                 }
                 String text = new String(content, at, end - at, StandardCharsets.ISO_8859_1);
-                return compressed ? compressedBase64(text, a, what) : uncompressedBase64(text, a, what);
+                return ByteBuffer.wrap(compressed ? compressedBase64(text, a, what) : uncompressedBase64(text, a, what));
             }
             ByteBuffer buf = ByteBuffer.wrap(content).order(order);
             buf.position(at);
@@ -541,7 +542,7 @@ public final class VtuReader implements FieldReader {
                 ByteBuffer header = ByteBuffer.wrap(content, start, (int) ((3 + blocks) * headerSize)).slice().order(order);
                 ByteBuffer data = ByteBuffer.wrap(content, start + (int) ((3 + blocks) * headerSize),
                     content.length - start - (int) ((3 + blocks) * headerSize)).slice();
-                return inflate(header, data, a, what);
+                return ByteBuffer.wrap(inflate(header, data, a, what));
             }
             if (buf.remaining() < headerSize) {
                 throw bytesError(at, what + ": the appended data end before their size header (truncated?)");
@@ -551,18 +552,16 @@ public final class VtuReader implements FieldReader {
                 throw bytesError(at, what + ": the header gives " + size + " bytes, " + buf.remaining()
                     + " remain (truncated?)");
             }
-            byte[] out = new byte[(int) size];
-            buf.get(out);
-            return out;
+            return ByteBuffer.wrap(content, buf.position(), (int) size).slice();
         }
 
-        private double[] convert(byte[] bytes, String type, int size, long n, ArrayElement a, String what)
+        private double[] convert(ByteBuffer bytes, String type, int size, long n, ArrayElement a, String what)
             throws InputException {
-            if (bytes.length != n * size) {
-                throw error(a.line, a.column, what + ": " + bytes.length + " bytes of " + type + " data, expected " + n
+            if (bytes.remaining() != n * size) {
+                throw error(a.line, a.column, what + ": " + bytes.remaining() + " bytes of " + type + " data, expected " + n
                     + " values (" + n * size + " bytes)");
             }
-            ByteBuffer buf = ByteBuffer.wrap(bytes).order(order);
+            ByteBuffer buf = bytes.slice().order(order);
             double[] v = new double[(int) n];
             switch (type) {
                 case "Float64" -> buf.asDoubleBuffer().get(v);
@@ -602,12 +601,12 @@ public final class VtuReader implements FieldReader {
                 }
                 case "Int8" -> {
                     for (int i = 0; i < n; i++) {
-                        v[i] = bytes[i];
+                        v[i] = buf.get(i);
                     }
                 }
                 default -> {
                     for (int i = 0; i < n; i++) {
-                        v[i] = bytes[i] & 0xff;
+                        v[i] = buf.get(i) & 0xff;
                     }
                 }
             }
