@@ -14,7 +14,8 @@ import picocli.CommandLine.Command;
 @Command(name = "eigencheck", mixinStandardHelpOptions = true, version = "eigencheck 0.1.0",
     description = "Certified reference solutions of the linear diffusion equation and convergence evidence"
         + " for heat-conduction solvers.",
-    subcommands = {EvalCommand.class, CompareCommand.class, CommandLine.HelpCommand.class})
+    subcommands = {RunCommand.class, EvalCommand.class, CompareCommand.class, OrderCommand.class,
+        CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
     /** Exit code when every check passed. */
     public static final int OK = 0;
@@ -28,7 +29,7 @@ public final class Main implements Runnable {
 
     @Override
     public void run() {
-        throw new CommandLine.ParameterException(spec.commandLine(), "name a command: eval or compare (see eigencheck --help)");
+        throw new CommandLine.ParameterException(spec.commandLine(), "name a command: run, eval, compare or order (see eigencheck --help)");
     }
 
     public static void main(String[] args) {
