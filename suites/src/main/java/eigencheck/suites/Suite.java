@@ -22,7 +22,7 @@ public record Suite(String name, Path file, Path directory, List<Case> cases) {
     /** One case of a suite. */
     public record Case(String name, String description, Problem problem, Path problemFile, Solver solver,
                        ReadOptions read, List<Level> levels, Compare compare, List<Expect> rules,
-                       String refinementPath) {
+                       String refinementPath, eigencheck.oracle.expr.Expression manufactured) {
         public Case {
             levels = List.copyOf(levels);
             rules = List.copyOf(rules);
@@ -61,13 +61,18 @@ public record Suite(String name, Path file, Path directory, List<Case> cases) {
         }
     }
 
-    /** What to compare: the field at given times (norms), probe points, heat content. */
+    /**
+     * What to compare: the field at given times (norms), probe points, the heat content, and the heat
+     * flux through faces ({@code xmin}, {@code xmax}) from the derivative of the output's boundary
+     * element.
+     */
     public record Compare(List<Double> times, String location, List<String> norms, List<Double> probes,
-                          boolean heatContent) {
+                          boolean heatContent, List<String> flux) {
         public Compare {
             times = List.copyOf(times);
             norms = List.copyOf(norms);
             probes = List.copyOf(probes);
+            flux = List.copyOf(flux);
         }
     }
 

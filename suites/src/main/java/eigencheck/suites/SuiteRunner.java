@@ -258,11 +258,12 @@ public final class SuiteRunner {
                     + Arrays.toString(series.times()));
             }
             String name = fieldName(c, f);
-            SlabReference ref = new SlabReference(oracle, t, 0);
+            eigencheck.suites.norms.Reference ref = c.manufactured() != null
+                ? new eigencheck.suites.norms.ManufacturedReference(c.manufactured(), t, 0) : new SlabReference(oracle, t, 0);
             String suffix = "@t=" + fmt(t);
             ErrorNorms.Result r;
             if (c.compare().location().equals("cells") && !f.cellData().containsKey(name)) {
-                r = cellCentres(f, f.pointData().get(name), oracle, t);
+                r = cellCentres(f, f.pointData().get(name), ref, ((Slab) c.problem().domain()).length());
             } else if (f.cellData().containsKey(name)) {
                 r = ErrorNorms.ofCellData(f, f.cellData().get(name), ref);
             } else {
@@ -282,14 +283,24 @@ public final class SuiteRunner {
             DataArray values = f.pointData().containsKey(name) ? f.pointData().get(name) : null;
             for (double x : c.compare().probes()) {
                 if (values != null) {
-                    out.put("probe x=" + fmt(x) + suffix, Math.abs(interpolate(f, values, x)
-                        - oracle.temperature(x, t).value()));
+                    double[] exact = new double[1];
+                    ref.evaluate(new double[] {x, 0, 0}, exact, null);
+                    out.put("probe x=" + fmt(x) + suffix, Math.abs(interpolate(f, values, x) - exact[0]));
+                }
+            }
+            for (String face : c.compare().flux()) {
+                if (values != null) {
+                    double length = ((Slab) c.problem().domain()).length();
+                    double x = face.equals("xmin") ? 0 : length;
+                    double exact = -c.problem().material().conductivity() * exactGradient(ref, x);
+                    double computed = -c.problem().material().conductivity() * boundaryGradient(f, values, face);
+                    out.put("flux " + face + suffix, Math.abs(computed - exact));
                 }
             }
             if (c.compare().heatContent() && values != null) {
                 double length = ((Slab) c.problem().domain()).length();
                 double rhoC = c.problem().material().volumetricHeatCapacity();
-                double exact = rhoC * length * oracle.cellAverage(0, length, t).value();
+                double exact = rhoC * length * ref.segmentAverage(0, length);
                 double h = heatContent(f, values, length, c.compare().location().equals("cells")) * rhoC;
                 out.put("heatContent" + suffix, Math.abs(h - exact) / Math.abs(exact));
             }
@@ -322,14 +333,14 @@ public final class SuiteRunner {
      * between centres and at the slab's ends; each value is compared with the exact average over its
      * cell (like with like).
      */
-    private static ErrorNorms.Result cellCentres(Field f, DataArray values, Oracle oracle, double t) {
+    private static ErrorNorms.Result cellCentres(Field f, DataArray values, eigencheck.suites.norms.Reference ref,
+                                                 double length) {
         int n = f.size();
         Integer[] order = new Integer[n];
         for (int i = 0; i < n; i++) {
             order[i] = i;
         }
         Arrays.sort(order, (a, b) -> Double.compare(f.coordinate(a, 0), f.coordinate(b, 0)));
-        double length = ((Slab) oracle.problem().domain()).length();
         double max = 0;
         double sum = 0;
         double l2 = 0;
@@ -337,12 +348,32 @@ public final class SuiteRunner {
             double x = f.coordinate(order[k], 0);
             double left = k == 0 ? 0 : 0.5 * (x + f.coordinate(order[k - 1], 0));
             double right = k == n - 1 ? length : 0.5 * (x + f.coordinate(order[k + 1], 0));
-            double e = values.value(order[k]) - oracle.cellAverage(left, right, t).value();
+            double e = values.value(order[k]) - ref.segmentAverage(left, right);
             max = Math.max(max, Math.abs(e));
             sum += e * e;
             l2 += (right - left) * e * e;
         }
         return new ErrorNorms.Result("cells", n, max, Math.sqrt(sum / n), Math.sqrt(l2), null);
+    }
+
+    private static double exactGradient(eigencheck.suites.norms.Reference ref, double x) {
+        double[] v = new double[1];
+        double[] g = new double[3];
+        ref.evaluate(new double[] {x, 0, 0}, v, g);
+        return g[0];
+    }
+
+    /** du/dx of the linear interpolant on the element at the face (the two outermost nodes). */
+    private static double boundaryGradient(Field f, DataArray values, String face) {
+        int n = f.size();
+        Integer[] order = new Integer[n];
+        for (int i = 0; i < n; i++) {
+            order[i] = i;
+        }
+        Arrays.sort(order, (a, b) -> Double.compare(f.coordinate(a, 0), f.coordinate(b, 0)));
+        int a = face.equals("xmin") ? order[0] : order[n - 2];
+        int b = face.equals("xmin") ? order[1] : order[n - 1];
+        return (values.value(b) - values.value(a)) / (f.coordinate(b, 0) - f.coordinate(a, 0));
     }
 
     private static double interpolate(Field f, DataArray values, double x) {

@@ -70,6 +70,20 @@ class SuiteRunIT {
     }
 
     @Test
+    void manufacturedCaseUsesTheExpressionAndWritesTheDerivedProblem() throws IOException {
+        Results.CaseResult m = c("manufactured");
+        assertEquals(Verdict.PASSED, m.verdict(), m.message());
+        // the same planted error 0.3 h^2 sin(pi x) against u = x(1-x) itself
+        assertEquals(0.3 / 256, m.metrics().get(0).errors()[2], 1e-15);
+        // flux error at x = 0 of the boundary element: k |(u_h(h) - u_h(0))/h - u'(0)| = h - 0.3 h sin(pi h)
+        double h = 1.0 / 16;
+        assertEquals(Math.abs(-h + 0.3 * h * Math.sin(Math.PI * h)), m.metrics().stream()
+            .filter(q -> q.name().startsWith("flux xmin")).findFirst().orElseThrow().errors()[2], 1e-12);
+        String derived = Files.readString(report.resolve("runs/manufactured/level-0/problem.json"));
+        assertTrue(derived.contains("\"robin\"") && derived.contains("\"source\""), derived);
+    }
+
+    @Test
     void tooStrictRuleFailsWithItsNumbers() {
         Results.CaseResult f = c("too-strict");
         assertEquals(Verdict.FAILED, f.verdict());
@@ -85,17 +99,17 @@ class SuiteRunIT {
         assertTrue(c("empty").message().contains("wrote nothing"), c("empty").message());
         assertTrue(c("empty").message().contains("done (but wrote nothing)"), "stdout tail");
         assertTrue(c("garbage").message().contains("NaN is not finite"), c("garbage").message());
-        assertEquals(2, result.count(Verdict.PASSED) + result.count(Verdict.FAILED));
+        assertEquals(3, result.count(Verdict.PASSED) + result.count(Verdict.FAILED));
     }
 
     @Test
     void reportsAreWrittenAndCarryTheNumbers() throws IOException {
         JsonNode json = new ObjectMapper().readTree(Files.readAllBytes(report.resolve("results.json")));
         assertEquals(Results.SCHEMA_VERSION, json.get("schemaVersion").asInt());
-        assertEquals(6, json.get("cases").size());
+        assertEquals(7, json.get("cases").size());
         assertEquals("passed", json.get("cases").get(0).get("verdict").asText());
         String junit = Files.readString(report.resolve("junit.xml"));
-        assertTrue(junit.contains("tests=\"6\" failures=\"1\" errors=\"4\""), junit);
+        assertTrue(junit.contains("tests=\"7\" failures=\"1\" errors=\"4\""), junit);
         assertTrue(junit.contains("<failure message=\"observed max order 2.000"), junit);
         String html = Files.readString(report.resolve("report.html"));
         assertTrue(html.contains("<svg") && html.contains("do not validate a design"), "plot and caution");
@@ -103,7 +117,7 @@ class SuiteRunIT {
         try (var s = Files.list(report.resolve("allure-results"))) {
             allure = s.collect(Collectors.toList());
         }
-        assertEquals(6, allure.stream().filter(p -> p.toString().endsWith("-result.json")).count());
+        assertEquals(7, allure.stream().filter(p -> p.toString().endsWith("-result.json")).count());
         assertTrue(allure.stream().anyMatch(p -> p.toString().endsWith(".svg")), "plot attachment");
     }
 
@@ -141,7 +155,7 @@ class SuiteRunIT {
     void junitEntryPointTurnsCasesIntoDynamicTests() throws Throwable {
         Path dir = work.resolve("junit");
         List<DynamicTest> tests = SuiteTests.of(suiteFile, dir).collect(Collectors.toList());
-        assertEquals(6, tests.size());
+        assertEquals(7, tests.size());
         assertEquals("ok", tests.get(0).getDisplayName());
         tests.get(0).getExecutable().execute();
         assertThrows(AssertionError.class, () -> tests.get(1).getExecutable().execute());

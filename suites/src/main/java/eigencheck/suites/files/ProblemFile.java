@@ -30,6 +30,42 @@ public final class ProblemFile {
     private ProblemFile() {
     }
 
+    /**
+     * Writes a problem in the problem-file format (JSON), expressions as formulas: what a solver of a
+     * manufactured case reads through the {@code {problem}} placeholder.
+     */
+    public static String toJson(Problem p) {
+        com.fasterxml.jackson.databind.ObjectMapper m = new com.fasterxml.jackson.databind.ObjectMapper();
+        var root = m.createObjectNode();
+        var domain = root.putObject("domain");
+        domain.put("shape", "slab");
+        domain.put("length", ((Slab) p.domain()).length());
+        var material = root.putObject("material");
+        material.put("conductivity", p.material().conductivity());
+        material.put("volumetricHeatCapacity", p.material().volumetricHeatCapacity());
+        root.put("initial", p.initial().formula());
+        root.put("source", p.source().formula());
+        var boundary = root.putObject("boundary");
+        for (Map.Entry<Side, BoundaryCondition> e : p.boundary().entrySet()) {
+            var face = boundary.putObject(e.getKey().key());
+            BoundaryCondition bc = e.getValue();
+            if (bc instanceof BoundaryCondition.Dirichlet d) {
+                face.put("dirichlet", d.temperature().formula());
+            } else if (bc instanceof BoundaryCondition.Neumann n) {
+                face.put("neumann", n.heatFlux().formula());
+            } else if (bc instanceof BoundaryCondition.Robin r) {
+                var robin = face.putObject("robin");
+                robin.put("h", r.heatTransferCoefficient());
+                robin.put("ambient", r.ambient().formula());
+            }
+        }
+        try {
+            return m.writerWithDefaultPrettyPrinter().writeValueAsString(root);
+        } catch (com.fasterxml.jackson.core.JsonProcessingException e) {
+            throw new IllegalStateException(e);
+        }
+    }
+
     /** Reads and checks the file. @throws InputException listing every problem found */
     public static Problem read(Path file) throws InputException {
         return fromTree(TreeReader.read(file));

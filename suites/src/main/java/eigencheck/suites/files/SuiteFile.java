@@ -22,8 +22,8 @@ import java.util.Map;
  */
 public final class SuiteFile {
     private static final List<String> TOP = List.of("suite", "description", "cases");
-    private static final List<String> CASE = List.of("name", "description", "problem", "solver", "read", "levels",
-        "compare", "expect");
+    private static final List<String> CASE = List.of("name", "description", "problem", "manufactured", "solver", "read",
+        "levels", "compare", "expect");
     private static final List<String> NORMS = List.of("max", "rms", "l2", "h1semi");
 
     private SuiteFile() {
@@ -79,7 +79,21 @@ public final class SuiteFile {
         // problem: a path or an inline mapping
         Problem problem = null;
         Path problemFile = null;
-        Node p = c.required(o, "problem", "give a problem file (path) or the problem inline");
+        eigencheck.oracle.expr.Expression manufactured = null;
+        Node p = f.get("problem");
+        if (f.containsKey("manufactured")) {
+            if (p != null) {
+                c.problem(Cause.INVALID_VALUE, o.keys().get("manufactured"), "give problem or manufactured, not both");
+            }
+            Object[] m = manufactured(c, f.get("manufactured"));
+            if (m != null) {
+                problem = (Problem) m[0];
+                manufactured = (eigencheck.oracle.expr.Expression) m[1];
+            }
+            p = null;
+        } else if (p == null) {
+            c.required(o, "problem", "give a problem file (path), the problem inline, or manufactured: {solution: ...}");
+        }
         if (p instanceof Node.Scalar s && s.value() instanceof String path) {
             problemFile = dir.resolve(path).normalize();
             if (!Files.isRegularFile(problemFile)) {
@@ -132,7 +146,80 @@ public final class SuiteFile {
         if (name == null || rules.contains(null)) {
             return null;
         }
-        return new Suite.Case(name, description, problem, problemFile, solver, read, levels, compare, rules, path[0]);
+        return new Suite.Case(name, description, problem, problemFile, solver, read, levels, compare, rules, path[0],
+            manufactured);
+    }
+
+    /**
+     * {solution: "u(x,t)", domain: {shape: slab, length}, material: {...}, boundary: {xmin: dirichlet |
+     * neumann | {robin: h}, xmax: ...}}: the problem whose exact solution is u (source and face data
+     * derived exactly).
+     */
+    private static Object[] manufactured(Checker c, Node n) {
+        Node.Obj o = c.object(n, "give {solution, domain, material, boundary}");
+        if (o == null) {
+            return null;
+        }
+        c.allowOnly(o, List.of("solution", "domain", "material", "boundary"));
+        Node sol = c.required(o, "solution", "the manufactured solution u(x, t), an expression");
+        eigencheck.oracle.expr.Expression u = sol == null ? null : c.expression(sol, new String[] {"x", "t"},
+            "u is an expression of x and t");
+        // reuse the problem reader for domain and material: build a throw-away problem around them
+        Node domain = c.required(o, "domain", "for example {shape: slab, length: 1}");
+        Node material = c.required(o, "material", "{conductivity, volumetricHeatCapacity} or {diffusivity}");
+        Node boundary = c.required(o, "boundary", "the kind of each face: {xmin: dirichlet, xmax: {robin: 25}}");
+        if (u == null || domain == null || material == null || boundary == null) {
+            return null;
+        }
+        Map<String, Node> fields = new LinkedHashMap<>();
+        fields.put("domain", domain);
+        fields.put("material", material);
+        fields.put("initial", new Node.Scalar(o.location(), "0", false));
+        Map<String, Node> faces = new LinkedHashMap<>();
+        Map<String, InputLocation> faceKeys = new LinkedHashMap<>();
+        faces.put("xmin", new Node.Obj(o.location(), Map.of("dirichlet", new Node.Scalar(o.location(), "0", false)),
+            Map.of("dirichlet", o.location())));
+        faces.put("xmax", faces.get("xmin"));
+        faceKeys.put("xmin", o.location());
+        faceKeys.put("xmax", o.location());
+        fields.put("boundary", new Node.Obj(o.location(), faces, faceKeys));
+        Problem carrier;
+        try {
+            carrier = ProblemFile.fromTree(new Node.Obj(o.location(), fields, Map.of()));
+        } catch (InputException e) {
+            for (InputException.Problem q : e.problems()) {
+                c.problem(q.cause(), q.location(), q.message());
+            }
+            return null;
+        }
+        Node.Obj b = c.object(boundary, "{xmin: dirichlet | neumann | {robin: h}, xmax: ...}");
+        if (b == null) {
+            return null;
+        }
+        c.allowOnly(b, List.of("xmin", "xmax"));
+        eigencheck.oracle.problem.Manufactured.Face[] kinds = new eigencheck.oracle.problem.Manufactured.Face[2];
+        String[] sides = {"xmin", "xmax"};
+        for (int i = 0; i < 2; i++) {
+            Node face = c.required(b, sides[i], "dirichlet, neumann or {robin: h}");
+            if (face instanceof Node.Scalar s && "dirichlet".equals(s.value())) {
+                kinds[i] = eigencheck.oracle.problem.Manufactured.Face.dirichlet();
+            } else if (face instanceof Node.Scalar s && "neumann".equals(s.value())) {
+                kinds[i] = eigencheck.oracle.problem.Manufactured.Face.neumann();
+            } else if (face instanceof Node.Obj r && r.fields().containsKey("robin")) {
+                double h = c.positive(r.fields().get("robin"), "the heat transfer coefficient h in W/(m^2 K)");
+                if (!Double.isNaN(h)) {
+                    kinds[i] = eigencheck.oracle.problem.Manufactured.Face.robin(h);
+                }
+            } else if (face != null) {
+                c.problem(Cause.INVALID_VALUE, face.location(), "a face kind is dirichlet, neumann or {robin: h}");
+            }
+        }
+        if (kinds[0] == null || kinds[1] == null) {
+            return null;
+        }
+        Problem derived = eigencheck.oracle.problem.Manufactured.slab(u, (Slab) carrier.domain(), carrier.material(),
+            kinds[0], kinds[1]);
+        return new Object[] {derived, u};
     }
 
     private static Suite.Solver solver(Checker c, Node n) {
@@ -362,13 +449,13 @@ public final class SuiteFile {
     private static Suite.Compare compare(Checker c, Node n, InputLocation at) {
         if (n == null) {
             c.problem(Cause.MISSING, at, "compare: missing; give {times: [...], norms: [...]}");
-            return new Suite.Compare(List.of(), "points", List.of("max"), List.of(), false);
+            return new Suite.Compare(List.of(), "points", List.of("max"), List.of(), false, List.of());
         }
         Node.Obj o = c.object(n, "give {times: [...], norms: [max, rms, l2, h1semi], location: points|cells}");
         if (o == null) {
-            return new Suite.Compare(List.of(), "points", List.of("max"), List.of(), false);
+            return new Suite.Compare(List.of(), "points", List.of("max"), List.of(), false, List.of());
         }
-        c.allowOnly(o, List.of("times", "norms", "location", "probes", "heatContent"));
+        c.allowOnly(o, List.of("times", "norms", "location", "probes", "heatContent", "flux"));
         List<Double> times = new ArrayList<>();
         if (o.fields().get("times") instanceof Node.Arr arr) {
             for (Node t : arr.items()) {
@@ -403,7 +490,18 @@ public final class SuiteFile {
             }
         }
         boolean heat = o.fields().get("heatContent") instanceof Node.Scalar s && Boolean.TRUE.equals(s.value());
-        return new Suite.Compare(times, location == null ? "points" : location, norms, probes, heat);
+        List<String> flux = new ArrayList<>();
+        if (o.fields().get("flux") instanceof Node.Arr arr) {
+            for (Node t : arr.items()) {
+                String face = c.text(t, "xmin or xmax");
+                if (face != null && !List.of("xmin", "xmax").contains(face)) {
+                    c.problem(Cause.INVALID_VALUE, t.location(), "face \"" + face + "\"; allowed: xmin, xmax");
+                } else if (face != null) {
+                    flux.add(face);
+                }
+            }
+        }
+        return new Suite.Compare(times, location == null ? "points" : location, norms, probes, heat, flux);
     }
 
     private static Suite.Expect expect(Checker c, Node n, Suite.Compare compare) {
@@ -419,7 +517,8 @@ public final class SuiteFile {
         Map<String, Node> f = o.fields();
         String norm = f.containsKey("norm") ? c.text(f.get("norm"), "the norm the rule applies to")
             : compare.norms().isEmpty() ? "max" : compare.norms().get(0);
-        if (norm != null && !compare.norms().contains(norm) && !norm.startsWith("probe") && !norm.equals("heatContent")) {
+        if (norm != null && !compare.norms().contains(norm) && !norm.startsWith("probe") && !norm.equals("heatContent")
+            && !norm.startsWith("flux")) {
             c.problem(Cause.INVALID_VALUE, f.containsKey("norm") ? f.get("norm").location() : o.location(), "norm \"" + norm
                 + "\" is not among compare.norms " + compare.norms());
         }

@@ -41,7 +41,21 @@ public final class LevelRunner {
             return new Outcome(true, true, 0, out, "");
         }
         Path output = levelDir.resolve(c.solver().output()).toAbsolutePath();
+        Path problem = c.problemFile();
+        if (c.manufactured() != null) {
+            problem = levelDir.resolve("problem.json").toAbsolutePath();
+            try {
+                Files.writeString(problem, eigencheck.suites.files.ProblemFile.toJson(c.problem()));
+            } catch (IOException e) {
+                return new Outcome(false, false, 0, null, "cannot write " + problem + ": " + e.getMessage());
+            }
+        }
         List<String> args = substitute(c.solver().command(), level, output, levelDir);
+        if (problem != null) {
+            for (int i = 0; i < args.size(); i++) {
+                args.set(i, args.get(i).replace("{problem}", problem.toString()));
+            }
+        }
         String inputs = inputsHash(suite.directory(), args, c, output);
         Path stamp = levelDir.resolve("inputs.sha256");
         Path outStamp = levelDir.resolve("output.sha256");
@@ -123,6 +137,10 @@ public final class LevelRunner {
                 d.update(a.getBytes(StandardCharsets.UTF_8));
                 d.update((byte) 0);
                 if (a.contains(output.toString())) {
+                    continue;
+                }
+                if (a.endsWith("problem.json") && c.manufactured() != null) {
+                    d.update(eigencheck.suites.files.ProblemFile.toJson(c.problem()).getBytes(StandardCharsets.UTF_8));
                     continue;
                 }
                 try {

@@ -15,6 +15,13 @@ public class FakeSolver {
                 case "--cells" -> n = Integer.parseInt(a[i + 1]);
                 case "--mode" -> mode = a[i + 1];
                 case "--out" -> out = a[i + 1];
+                case "--problem" -> {
+                    String text = Files.readString(Path.of(a[i + 1]));
+                    if (!text.contains("\"source\"") || !text.contains("\"robin\"")) {
+                        System.err.println("fake solver: the derived problem lacks its source or robin face");
+                        System.exit(4);
+                    }
+                }
                 default -> throw new IllegalArgumentException(a[i]);
             }
         }
