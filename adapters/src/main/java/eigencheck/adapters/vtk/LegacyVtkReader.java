@@ -139,19 +139,14 @@ public final class LegacyVtkReader implements FieldReader {
                     spacing = new double[] {real(), real(), real()};
                 }
             }
-            pointCount = d[0] * d[1] * d[2];
-            points = new double[3 * pointCount];
-            int i = 0;
-            for (int kz = 0; kz < d[2]; kz++) {
-                for (int ky = 0; ky < d[1]; ky++) {
-                    for (int kx = 0; kx < d[0]; kx++) {
-                        points[3 * i] = origin[0] + kx * spacing[0];
-                        points[3 * i + 1] = origin[1] + ky * spacing[1];
-                        points[3 * i + 2] = origin[2] + kz * spacing[2];
-                        i++;
-                    }
+            double[][] axes = new double[3][];
+            for (int a = 0; a < 3; a++) {
+                axes[a] = new double[d[a]];
+                for (int k = 0; k < d[a]; k++) {
+                    axes[a][k] = origin[a] + k * spacing[a];
                 }
             }
+            gridPoints(d, axes);
             implicitCells(d);
         }
 
@@ -178,6 +173,12 @@ public final class LegacyVtkReader implements FieldReader {
                 String type = word("the data type");
                 axes[a] = values(n, type, names[a]);
             }
+            gridPoints(d, axes);
+            implicitCells(d);
+        }
+
+        /** The points of a structured block with the given axis coordinates, x fastest. */
+        private void gridPoints(int[] d, double[][] axes) {
             pointCount = d[0] * d[1] * d[2];
             points = new double[3 * pointCount];
             int i = 0;
@@ -191,7 +192,6 @@ public final class LegacyVtkReader implements FieldReader {
                     }
                 }
             }
-            implicitCells(d);
         }
 
         /** Lines, quads (counter-clockwise) or hexahedra of a structured block, x fastest. */

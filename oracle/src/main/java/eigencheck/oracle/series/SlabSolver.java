@@ -43,7 +43,7 @@ import org.apache.commons.math3.special.Erf;
  * Thread-safe: mode tables grow under a lock and are published as immutable snapshots.
  */
 public final class SlabSolver {
-    /** Modes beyond this are refused (the image form of very small times is not implemented). */
+    /** Modes beyond this are refused; the image (heat-kernel) form for very small times is left for later. */
     static final int MAX_MODES = 6000;
     private static final double TAIL_FRACTION = 1e-3;
     /** A further subtraction is taken only while its closed-form part stays this close to the scale. */
