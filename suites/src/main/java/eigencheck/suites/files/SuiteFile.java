@@ -80,6 +80,7 @@ public final class SuiteFile {
         Problem problem = null;
         Path problemFile = null;
         eigencheck.oracle.expr.Expression manufactured = null;
+        double manufacturedLength = Double.NaN;
         Node p = f.get("problem");
         if (f.containsKey("manufactured")) {
             if (p != null) {
@@ -89,6 +90,7 @@ public final class SuiteFile {
             if (m != null) {
                 problem = (Problem) m[0];
                 manufactured = (eigencheck.oracle.expr.Expression) m[1];
+                manufacturedLength = ((double[]) m[2])[0];
             }
             p = null;
         } else if (p == null) {
@@ -121,7 +123,7 @@ public final class SuiteFile {
         }
         Suite.Solver solver = f.containsKey("solver") ? solver(c, f.get("solver")) : null;
         ReadOptions read = f.containsKey("read") ? read(c, f.get("read")) : ReadOptions.defaults();
-        double length = problem != null && problem.domain() instanceof Slab slab ? slab.length() : Double.NaN;
+        double length = problem != null && problem.domain() instanceof Slab slab ? slab.length() : manufacturedLength;
         String[] path = {null};
         List<Suite.Level> levels = new ArrayList<>();
         Node levelsNode = c.required(o, "levels", "give the refinement levels");
@@ -162,13 +164,35 @@ public final class SuiteFile {
         }
         c.allowOnly(o, List.of("solution", "domain", "material", "boundary"));
         Node sol = c.required(o, "solution", "the manufactured solution u(x, t), an expression");
-        eigencheck.oracle.expr.Expression u = sol == null ? null : c.expression(sol, new String[] {"x", "t"},
-            "u is an expression of x and t");
-        // reuse the problem reader for domain and material: build a throw-away problem around them
-        Node domain = c.required(o, "domain", "for example {shape: slab, length: 1}");
+        boolean planar = o.fields().get("domain") instanceof Node.Obj d0 && d0.fields().get("shape") instanceof Node.Scalar s0
+            && "rectangle".equals(s0.value());
+        eigencheck.oracle.expr.Expression u = sol == null ? null : planar ? eigencheck.oracle.expr.Expression.parse("0")
+            : c.expression(sol, new String[] {"x", "t"}, "u is an expression of x and t");
+        Node domain = c.required(o, "domain", "for example {shape: slab, length: 1} or {shape: rectangle, lengthX: 1,"
+            + " lengthY: 0.5}");
         Node material = c.required(o, "material", "{conductivity, volumetricHeatCapacity} or {diffusivity}");
+        if (u == null || domain == null || material == null) {
+            return null;
+        }
+        if (domain instanceof Node.Obj d && d.fields().get("shape") instanceof Node.Scalar sh
+            && "rectangle".equals(sh.value())) {
+            // u(x, y, t) on a rectangle: the expression is the reference; the solver encodes the data
+            c.allowOnly(d, List.of("shape", "lengthX", "lengthY"));
+            Node lx = c.required(d, "lengthX", "the width in x, m");
+            Node ly = c.required(d, "lengthY", "the height in y, m");
+            double wx = lx == null ? Double.NaN : c.positive(lx, "m");
+            double wy = ly == null ? Double.NaN : c.positive(ly, "m");
+            eigencheck.oracle.expr.Expression surface = c.expression(sol, new String[] {"x", "y", "t"},
+                "u is an expression of x, y and t");
+            if (o.fields().containsKey("boundary")) {
+                c.problem(Cause.UNKNOWN_FIELD, o.keys().get("boundary"), "a rectangle's manufactured data are the"
+                    + " solver's; leave boundary out (the reference is the solution itself)");
+            }
+            return Double.isNaN(wx) || Double.isNaN(wy) || surface == null ? null
+                : new Object[] {null, surface, new double[] {wx, wy}};
+        }
         Node boundary = c.required(o, "boundary", "the kind of each face: {xmin: dirichlet, xmax: {robin: 25}}");
-        if (u == null || domain == null || material == null || boundary == null) {
+        if (boundary == null) {
             return null;
         }
         Map<String, Node> fields = new LinkedHashMap<>();
@@ -219,7 +243,7 @@ public final class SuiteFile {
         }
         Problem derived = eigencheck.oracle.problem.Manufactured.slab(u, (Slab) carrier.domain(), carrier.material(),
             kinds[0], kinds[1]);
-        return new Object[] {derived, u};
+        return new Object[] {derived, u, new double[] {((Slab) carrier.domain()).length()}};
     }
 
     private static Suite.Solver solver(Checker c, Node n) {

@@ -1,43 +1,69 @@
 package eigencheck.suites.norms;
 
 import eigencheck.oracle.expr.Expression;
+import java.util.List;
 
 /**
- * A manufactured solution u(x, t) as the reference: values from the expression itself and gradients
- * from its exact symbolic derivative, read along one axis and constant across the others.
+ * A manufactured solution as the reference: u(x, t) on a slab (read along one axis, constant across
+ * the others) or u(x, y, t) on a rectangle; values from the expression itself and gradients from its
+ * exact symbolic derivatives.
  */
 public final class ManufacturedReference implements Reference {
     private final Expression u;
-    private final Expression ux;
+    private final Expression[] gradient;
+    private final int dimension;
     private final double time;
     private final int axis;
 
+    /**
+     * @param solution an expression of (x, t) or (x, y, t)
+     * @param axis the output coordinate read as x for a one-dimensional solution
+     */
     public ManufacturedReference(Expression solution, double time, int axis) {
-        this.u = solution.over("x", "t");
-        this.ux = u.derivative("x");
+        boolean planar = solution.variables().contains("y");
+        this.dimension = planar ? 2 : 1;
+        this.u = planar ? solution.over("x", "y", "t") : solution.over("x", "t");
+        List<String> space = planar ? List.of("x", "y") : List.of("x");
+        this.gradient = new Expression[space.size()];
+        for (int a = 0; a < space.size(); a++) {
+            gradient[a] = u.derivative(space.get(a));
+        }
         this.time = time;
         this.axis = axis;
     }
 
     @Override
-    public void evaluate(double[] xyz, double[] value, double[] gradient) {
+    public void evaluate(double[] xyz, double[] value, double[] grad) {
         int n = xyz.length / 3;
-        double[] arg = new double[2];
+        double[] arg = new double[dimension + 1];
         for (int i = 0; i < n; i++) {
-            arg[0] = xyz[3 * i + axis];
-            arg[1] = time;
+            if (dimension == 1) {
+                arg[0] = xyz[3 * i + axis];
+            } else {
+                arg[0] = xyz[3 * i];
+                arg[1] = xyz[3 * i + 1];
+            }
+            arg[dimension] = time;
             value[i] = u.value(arg);
-            if (gradient != null) {
-                gradient[3 * i] = 0;
-                gradient[3 * i + 1] = 0;
-                gradient[3 * i + 2] = 0;
-                gradient[3 * i + axis] = ux.value(arg);
+            if (grad != null) {
+                grad[3 * i] = 0;
+                grad[3 * i + 1] = 0;
+                grad[3 * i + 2] = 0;
+                if (dimension == 1) {
+                    grad[3 * i + axis] = gradient[0].value(arg);
+                } else {
+                    grad[3 * i] = gradient[0].value(arg);
+                    grad[3 * i + 1] = gradient[1].value(arg);
+                }
             }
         }
     }
 
     @Override
     public double segmentAverage(double a, double b) {
+        if (dimension != 1) {
+            return Double.NaN;
+        }
         var gl = new org.apache.commons.math3.analysis.integration.IterativeLegendreGaussIntegrator(32, 1e-14, 1e-16);
         return gl.integrate(1_000_000, x -> u.value(x, time), Math.min(a, b), Math.max(a, b)) / Math.abs(b - a);
     }

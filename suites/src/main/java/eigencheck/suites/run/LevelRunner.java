@@ -42,7 +42,7 @@ public final class LevelRunner {
         }
         Path output = levelDir.resolve(c.solver().output()).toAbsolutePath();
         Path problem = c.problemFile();
-        if (c.manufactured() != null) {
+        if (c.manufactured() != null && c.problem() != null) {
             problem = levelDir.resolve("problem.json").toAbsolutePath();
             try {
                 Files.writeString(problem, eigencheck.suites.files.ProblemFile.toJson(c.problem()));
@@ -139,7 +139,7 @@ public final class LevelRunner {
                 if (a.contains(output.toString())) {
                     continue;
                 }
-                if (a.endsWith("problem.json") && c.manufactured() != null) {
+                if (a.endsWith("problem.json") && c.problem() != null && c.manufactured() != null) {
                     d.update(eigencheck.suites.files.ProblemFile.toJson(c.problem()).getBytes(StandardCharsets.UTF_8));
                     continue;
                 }
