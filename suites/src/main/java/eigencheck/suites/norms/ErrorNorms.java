@@ -137,9 +137,10 @@ public final class ErrorNorms {
             Elements.Rule rule = Elements.rule(type);
             double[] n = new double[count];
             double[] g = new double[count * top];
+            double[] j = new double[9];
             for (int q = 0; q < rule.size(); q++, k++) {
                 Elements.shape(type, rule.points(), q * top, n, g);
-                double[] j = new double[9];
+                java.util.Arrays.fill(j, 0);
                 for (int i = 0; i < count; i++) {
                     for (int a = 0; a < 3; a++) {
                         qp[3 * k + a] += n[i] * nodesXyz[3 * i + a];
@@ -161,13 +162,13 @@ public final class ErrorNorms {
         reference.evaluate(qp, u, du);
         double l2 = 0;
         double h1 = 0;
+        double[] j = new double[9];
+        double[] a = new double[top];
         for (int q = 0; q < total; q++) {
             double e = uh[q] - u[q];
             l2 += qw[q] * e * e;
-            double[] j = new double[9];
             System.arraycopy(jac, 9 * q, j, 0, 9);
             // a = grad_ref u_h - J^T grad u; |grad e|^2 = a^T G^{-1} a
-            double[] a = new double[top];
             for (int d = 0; d < top; d++) {
                 double jt = 0;
                 for (int r = 0; r < 3; r++) {
@@ -211,9 +212,10 @@ public final class ErrorNorms {
         double[] g = new double[count * top];
         double[] qp = new double[3 * rule.size()];
         double[] w = new double[rule.size()];
+        double[] j = new double[9];
         for (int q = 0; q < rule.size(); q++) {
             Elements.shape(type, rule.points(), q * top, n, g);
-            double[] j = new double[9];
+            java.util.Arrays.fill(j, 0);
             for (int i = 0; i < count; i++) {
                 int node = cells.node(c, order[i]);
                 for (int a = 0; a < 3; a++) {
