@@ -248,7 +248,7 @@ public final class ErrorNorms {
                     along = false;
                 }
             }
-            if (along && reference instanceof SlabReference s && s.axis() == axis) {
+            if (along && reference.axis() == axis) {
                 return reference.segmentAverage(xyz[3 * a + axis], xyz[3 * b + axis]);
             }
         }

@@ -60,6 +60,11 @@ public final class ManufacturedReference implements Reference {
     }
 
     @Override
+    public int axis() {
+        return dimension == 1 ? axis : -1;
+    }
+
+    @Override
     public double segmentAverage(double a, double b) {
         if (dimension != 1) {
             return Double.NaN;

@@ -14,7 +14,15 @@ public interface Reference {
      */
     void evaluate(double[] xyz, double[] value, double[] gradient);
 
-    /** Exact mean over the segment [a, b] along the problem's axis, or NaN if the reference has none. */
+    /**
+     * The output coordinate along which a one-dimensional reference varies (0, 1 or 2), or -1 for a
+     * reference that varies in more than one direction.
+     */
+    default int axis() {
+        return -1;
+    }
+
+    /** Exact mean over the segment [a, b] along {@link #axis()}, or NaN if the reference has none. */
     default double segmentAverage(double a, double b) {
         return Double.NaN;
     }

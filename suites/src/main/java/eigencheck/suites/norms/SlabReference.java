@@ -44,6 +44,7 @@ public final class SlabReference implements Reference {
     }
 
     /** The coordinate index read as the slab's x. */
+    @Override
     public int axis() {
         return axis;
     }

@@ -6,8 +6,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.BeforeEach;
@@ -38,14 +36,8 @@ class CompareCommandTest {
             """);
     }
 
-    private record Run(int code, String out, String err) {
-    }
-
-    private static Run run(String... args) {
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        int code = Main.run(args, new PrintWriter(out, true), new PrintWriter(err, true));
-        return new Run(code, out.toString(), err.toString());
+    private static CliRun run(String... args) {
+        return CliRun.of(args);
     }
 
     private static double u(double x) {
@@ -60,9 +52,9 @@ class CompareCommandTest {
         args[3] = "--json";
         args[4] = "--time=0.5";
         System.arraycopy(more, 0, args, 5, more.length);
-        Run r = run(args);
-        assertEquals(0, r.code, r.err);
-        return new ObjectMapper().readTree(r.out);
+        CliRun r = run(args);
+        assertEquals(0, r.code(), r.err());
+        return new ObjectMapper().readTree(r.out());
     }
 
     @Test
@@ -92,9 +84,9 @@ class CompareCommandTest {
         // tolerance: the oracle's bound (1e-10 of the scale 0.25) plus quadrature rounding
         assertEquals(h * h / Math.sqrt(30), r.get("l2").asDouble(), 1e-10);
         assertEquals(h / Math.sqrt(3), r.get("h1semi").asDouble(), 1e-10);
-        Run text = run("compare", problem.toString(), out.toString(), "--time", "0.5");
-        assertTrue(text.out.contains("l2      " + String.format(java.util.Locale.ROOT, "%.6e", h * h / Math.sqrt(30))),
-            text.out);
+        CliRun text = run("compare", problem.toString(), out.toString(), "--time", "0.5");
+        assertTrue(text.out().contains("l2      " + String.format(java.util.Locale.ROOT, "%.6e", h * h / Math.sqrt(30))),
+            text.out());
     }
 
     @Test
@@ -202,13 +194,13 @@ class CompareCommandTest {
         assertEquals(3, r.get("points").asInt());
         assertEquals(0.01, r.get("max").asDouble(), 1e-12);
         assertTrue(r.get("l2").isNull());
-        Run outside = run("compare", problem.toString(), csv.toString(), "--time", "0.5");
-        assertEquals(2, outside.code);
-        assertTrue(outside.err.contains("outside the slab") && outside.err.contains("--unit x=mm"), outside.err);
+        CliRun outside = run("compare", problem.toString(), csv.toString(), "--time", "0.5");
+        assertEquals(2, outside.code());
+        assertTrue(outside.err().contains("outside the slab") && outside.err().contains("--unit x=mm"), outside.err());
         Path noTime = dir.resolve("n.csv");
         Files.writeString(noTime, "x,T\n0,0\n1,0\n");
-        Run missing = run("compare", problem.toString(), noTime.toString());
-        assertEquals(2, missing.code);
-        assertTrue(missing.err.contains("--time"), missing.err);
+        CliRun missing = run("compare", problem.toString(), noTime.toString());
+        assertEquals(2, missing.code());
+        assertTrue(missing.err().contains("--time"), missing.err());
     }
 }

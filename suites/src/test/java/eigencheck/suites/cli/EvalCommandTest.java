@@ -4,8 +4,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
@@ -18,14 +16,8 @@ class EvalCommandTest {
     @TempDir
     Path dir;
 
-    private record Run(int code, String out, String err) {
-    }
-
-    private static Run run(String... args) {
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        int code = Main.run(args, new PrintWriter(out, true), new PrintWriter(err, true));
-        return new Run(code, out.toString(), err.toString());
+    private static CliRun run(String... args) {
+        return CliRun.of(args);
     }
 
     private Path file(String name, String content) throws IOException {
@@ -39,26 +31,26 @@ class EvalCommandTest {
         // NAFEMS TNSB Rev. 3 (1990), T3: u(0.08 m, 32 s) = 36.60 degC
         Path points = file("p.csv", "x,t\n0.08,32\n0.05,16\n");
         Path out = dir.resolve("out.csv");
-        Run r = run("eval", T3, "--points", points.toString(), "--out", out.toString());
-        assertEquals(0, r.code, r.err);
+        CliRun r = run("eval", T3, "--points", points.toString(), "--out", out.toString());
+        assertEquals(0, r.code(), r.err());
         List<String> lines = Files.readAllLines(out);
         assertEquals("x,t,u,bound", lines.get(0));
         String[] cells = lines.get(1).split(",");
         assertEquals(36.60, Double.parseDouble(cells[2]), 0.005);
         assertTrue(Double.parseDouble(cells[3]) <= 1e-10 * 100, lines.get(1));
-        assertTrue(r.err.contains("2 points written"), r.err);
+        assertTrue(r.err().contains("2 points written"), r.err());
     }
 
     @Test
     void nonNumericCellAndNegativeTimeAreOneLineErrorsWithTheirPlace() throws IOException {
         Path points = file("p.csv", "x,t\n0.05,1\n0.02,1.0e-3.5\n0.03,-1\n");
-        Run r = run("eval", T3, "--points", points.toString());
-        assertEquals(2, r.code);
-        String[] lines = r.err.trim().split("\n");
-        assertEquals(2, lines.length, r.err);
+        CliRun r = run("eval", T3, "--points", points.toString());
+        assertEquals(2, r.code());
+        String[] lines = r.err().trim().split("\n");
+        assertEquals(2, lines.length, r.err());
         assertTrue(lines[0].startsWith(points + ":3:2: column \"t\": \"1.0e-3.5\" is not a number"), lines[0]);
         assertTrue(lines[1].startsWith(points + ":4:2: t = -1 s is negative"), lines[1]);
-        assertTrue(r.out.isEmpty(), "nothing written on bad input");
+        assertTrue(r.out().isEmpty(), "nothing written on bad input");
     }
 
     @Test
@@ -71,30 +63,30 @@ class EvalCommandTest {
               xmin: {dirichlet: "0"}
               xmax: {convection: {h: 3, ambient: "20"}}
             """);
-        Run r = run("eval", problem.toString(), "--points", points.toString());
-        assertEquals(2, r.code);
-        assertTrue(r.err.contains("bad.yaml:1:1: material: missing"), r.err);
-        assertTrue(r.err.contains("bad.yaml:5:10: boundary.xmax.convection: unknown boundary type"), r.err);
-        assertTrue(!r.err.contains("Exception") && !r.err.contains("\tat "), "no stack trace: " + r.err);
+        CliRun r = run("eval", problem.toString(), "--points", points.toString());
+        assertEquals(2, r.code());
+        assertTrue(r.err().contains("bad.yaml:1:1: material: missing"), r.err());
+        assertTrue(r.err().contains("bad.yaml:5:10: boundary.xmax.convection: unknown boundary type"), r.err());
+        assertTrue(!r.err().contains("Exception") && !r.err().contains("\tat "), "no stack trace: " + r.err());
     }
 
     @Test
     void pointOutsideTheSlabNamesItsLineAndMissingColumnsAreNamed() throws IOException {
-        Run outside = run("eval", T3, "--points", file("a.csv", "x,t\n0.05,1\n0.5,1\n").toString());
-        assertEquals(2, outside.code);
-        assertTrue(outside.err.contains("a.csv:3: oracle: x = 0.5 m is outside the slab"), outside.err);
-        Run missing = run("eval", T3, "--points", file("b.csv", "x,time\n0.05,1\n").toString());
-        assertEquals(2, missing.code);
-        assertTrue(missing.err.contains("no column \"t\""), missing.err);
-        Run usage = run("eval", T3);
-        assertEquals(2, usage.code);
-        assertTrue(usage.err.contains("--points"), usage.err);
+        CliRun outside = run("eval", T3, "--points", file("a.csv", "x,t\n0.05,1\n0.5,1\n").toString());
+        assertEquals(2, outside.code());
+        assertTrue(outside.err().contains("a.csv:3: oracle: x = 0.5 m is outside the slab"), outside.err());
+        CliRun missing = run("eval", T3, "--points", file("b.csv", "x,time\n0.05,1\n").toString());
+        assertEquals(2, missing.code());
+        assertTrue(missing.err().contains("no column \"t\""), missing.err());
+        CliRun usage = run("eval", T3);
+        assertEquals(2, usage.code());
+        assertTrue(usage.err().contains("--points"), usage.err());
     }
 
     @Test
     void fluxQuantityWritesTheFluxColumn() throws IOException {
-        Run r = run("eval", T3, "--points", file("c.csv", "x,t\n0.05,20\n").toString(), "--quantity", "flux");
-        assertEquals(0, r.code, r.err);
-        assertTrue(r.out.startsWith("x,t,flux,bound\n"), r.out);
+        CliRun r = run("eval", T3, "--points", file("c.csv", "x,t\n0.05,20\n").toString(), "--quantity", "flux");
+        assertEquals(0, r.code(), r.err());
+        assertTrue(r.out().startsWith("x,t,flux,bound\n"), r.out());
     }
 }
