@@ -99,6 +99,7 @@ public final class SlabSolver {
     private final GaussLegendre windowRule;
 
     private volatile ModeTable table;
+    private final boolean steady;
 
     /**
      * Prepares the series for {@code problem} on a slab over 0 <= t <= timeHorizon.
@@ -124,6 +125,7 @@ public final class SlabSolver {
         // a horizon of zero still needs a non-degenerate time interval for the series in t
         this.horizon = Math.max(timeHorizon, 1e-9 * length * length / alpha);
         this.initial = problem.initial();
+        this.steady = problem.steady();
         BoundaryCondition left = problem.condition(Side.XMIN);
         BoundaryCondition right = problem.condition(Side.XMAX);
         this.leftH = homogeneousH(left, conductivity);
@@ -132,6 +134,11 @@ public final class SlabSolver {
         this.rightDirichlet = right instanceof BoundaryCondition.Dirichlet;
         this.modes = new SlabModes(length, leftH, rightH);
         this.zeroMode = modes.hasZeroMode();
+        if (steady && zeroMode) {
+            throw new OracleException(Reason.UNSUPPORTED, "oracle: a steady slab insulated or flux-driven on both faces"
+                + " has no unique steady state (u is fixed only up to a constant, and only when the net heat input"
+                + " vanishes); give a Dirichlet or Robin face, or solve the transient problem");
+        }
 
         // boundary data in time
         this.data = new double[][] {fitTime(left.data(), "boundary.xmin"), fitTime(right.data(), "boundary.xmax")};
@@ -340,8 +347,16 @@ public final class SlabSolver {
 
     /** Prepared state at one time: call {@link Slice#temperature} etc. for many points. */
     public Slice at(double t) {
+        if (steady) {
+            return new Slice(Double.POSITIVE_INFINITY);
+        }
         checkTime(t);
         return new Slice(t);
+    }
+
+    /** True for a steady problem: every time gives the same slice. */
+    public boolean steady() {
+        return steady;
     }
 
     /** What one of the three quantities is. */
@@ -385,6 +400,54 @@ public final class SlabSolver {
                 qsIntegral = null;
                 valueBound = 4 * EPS * scale;
                 fluxBound = 0;
+                uniform = false;
+                spacing = 0;
+                offset = 0;
+                return;
+            }
+            if (t == Double.POSITIVE_INFINITY) {
+                // steady: the lifting and the exact inverse of the operator applied to F; no modes
+                n = 0;
+                e = new double[0];
+                mu = new double[0];
+                phase = new double[0];
+                a0 = 0;
+                int panels = fEdges.length - 1;
+                qs = new double[panels][];
+                qsDerivative = new double[panels][];
+                qsIntegral = new double[panels][];
+                double qsMagnitude = 0;
+                double running = 0;
+                for (int p = 0; p < panels; p++) {
+                    double[] c = qsCoef[0][p].clone();
+                    qs[p] = c;
+                    qsDerivative[p] = Chebyshev.derivative(c, fEdges[p], fEdges[p + 1]);
+                    double[] anti = Chebyshev.antiderivative(c, fEdges[p], fEdges[p + 1]);
+                    anti[0] += running;
+                    running = Chebyshev.value(anti, 1);
+                    qsIntegral[p] = anti;
+                    qsMagnitude += Chebyshev.absSum(c);
+                }
+                for (int i = 0; i < 2; i++) {
+                    for (int d = 0; d < 3; d++) {
+                        lift[d] = 0;
+                    }
+                }
+                for (int i = 0; i < 2; i++) {
+                    double b = data[i][0];
+                    for (int d = 0; d < 3; d++) {
+                        lift[d] += beta[i][d] * b;
+                    }
+                }
+                double liftMagnitude = Math.abs(lift[0]) + Math.abs(lift[1]) * length;
+                double rounding = 8 * EPS * (qsMagnitude + liftMagnitude);
+                double qsDerivativeMagnitude = 0;
+                for (double[] c : qsDerivative) {
+                    qsDerivativeMagnitude += Chebyshev.absSum(c);
+                }
+                valueBound = rounding + deltaF * steadyGain + deltaData * dataGain(0);
+                fluxBound = conductivity * (8 * EPS * (qsDerivativeMagnitude + Math.abs(lift[1]))
+                    + deltaF * 2 * length / alpha + deltaData * dataGain(0) / length);
                 uniform = false;
                 spacing = 0;
                 offset = 0;

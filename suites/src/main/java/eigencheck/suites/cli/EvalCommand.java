@@ -67,7 +67,7 @@ final class EvalCommand implements Callable<Integer> {
         long start = System.nanoTime();
         Problem problem = ProblemFile.read(problemFile);
         List<String> coordinates = problem.domain().coordinates();
-        Points points = readPoints(pointsFile, coordinates);
+        Points points = readPoints(pointsFile, coordinates, !problem.steady());
         double horizon = 0;
         for (double t : points.t) {
             horizon = Math.max(horizon, t);
@@ -97,14 +97,19 @@ final class EvalCommand implements Callable<Integer> {
             int to = (int) ((long) n * (block + 1) / blocks);
             StringBuilder b = new StringBuilder((to - from) * 48);
             for (int i = from; i < to; i++) {
-                b.append(points.xText[i]).append(',').append(points.tText[i]).append(',').append(value[i]).append(',');
+                b.append(points.xText[i]).append(',');
+                if (!points.tText[i].isEmpty()) {
+                    b.append(points.tText[i]).append(',');
+                }
+                b.append(value[i]).append(',');
                 appendBound(b, bound[i]);
                 b.append('\n');
             }
             parts[block] = b;
         });
         StringBuilder text = new StringBuilder();
-        text.append(String.join(",", coordinates)).append(",t,").append(valueColumn).append(",bound\n");
+        boolean timed = points.tText.length == 0 || !points.tText[0].isEmpty();
+        text.append(String.join(",", coordinates)).append(timed ? ",t," : ",").append(valueColumn).append(",bound\n");
         for (StringBuilder part : parts) {
             text.append(part);
         }
@@ -168,7 +173,8 @@ final class EvalCommand implements Callable<Integer> {
     record Points(double[] x, double[] t, int[] line, String[] xText, String[] tText) {
     }
 
-    static Points readPoints(Path file, List<String> coordinates) throws InputException {
+    /** @param timeRequired false for a steady problem: the t column may be left out */
+    static Points readPoints(Path file, List<String> coordinates, boolean timeRequired) throws InputException {
         if (!Files.isRegularFile(file)) {
             throw new InputException(InputException.Cause.UNREADABLE, InputLocation.of(file),
                 "no such file; check the path of --points");
@@ -190,6 +196,9 @@ final class EvalCommand implements Callable<Integer> {
              CSVParser parser = CSVParser.parse(reader, format)) {
             Map<String, Integer> columns = new TreeMap<>(String.CASE_INSENSITIVE_ORDER);
             columns.putAll(parser.getHeaderMap());
+            if (!timeRequired && !columns.containsKey("t")) {
+                needed.remove("t");
+            }
             for (int j = 0; j < needed.size(); j++) {
                 Integer i = columns.get(needed.get(j));
                 if (i == null) {
@@ -203,7 +212,7 @@ final class EvalCommand implements Callable<Integer> {
             if (!problems.isEmpty()) {
                 throw new InputException(problems);
             }
-            int width = Math.max(index[0], index[1]) + 1;
+            int width = (needed.size() > 1 ? Math.max(index[0], index[1]) : index[0]) + 1;
             for (CSVRecord record : parser) {
                 int line = (int) parser.getCurrentLineNumber();
                 if (record.size() < width) {
@@ -216,7 +225,7 @@ final class EvalCommand implements Callable<Integer> {
                     continue;
                 }
                 xs.add(record.get(index[0]));
-                ts.add(record.get(index[1]));
+                ts.add(needed.size() > 1 ? record.get(index[1]) : "");
                 lines.add(line);
             }
         } catch (IOException | IllegalArgumentException | IllegalStateException e) {
@@ -230,9 +239,10 @@ final class EvalCommand implements Callable<Integer> {
         double[] x = new double[n];
         double[] t = new double[n];
         boolean[] bad = new boolean[n];
+        boolean timed = needed.size() > 1;
         java.util.stream.IntStream.range(0, n).parallel().forEach(i -> {
             x[i] = parse(xText[i]);
-            t[i] = parse(tText[i]);
+            t[i] = timed ? parse(tText[i]) : 0;
             bad[i] = !Double.isFinite(x[i]) || !(t[i] >= 0) || !Double.isFinite(t[i]);
         });
         int[] line = new int[n];
@@ -241,7 +251,7 @@ final class EvalCommand implements Callable<Integer> {
             if (bad[i] && problems.size() < 20) {
                 String[] cells = {xText[i], tText[i]};
                 double[] values = {x[i], t[i]};
-                for (int j = 0; j < 2; j++) {
+                for (int j = 0; j < needed.size(); j++) {
                     InputLocation at = InputLocation.at(file, line[i], index[j] + 1, "");
                     String name = needed.get(j);
                     if (Double.isNaN(values[j]) && !cells[j].equalsIgnoreCase("nan")) {

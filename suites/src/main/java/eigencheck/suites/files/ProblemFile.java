@@ -96,15 +96,18 @@ public final class ProblemFile {
         System.arraycopy(space, 0, spaceTime, 0, space.length);
         spaceTime[space.length] = "t";
 
-        Node steady = top.fields().get("steady");
-        if (steady != null && steady instanceof Node.Scalar s && Boolean.TRUE.equals(s.value())) {
-            c.problem(InputException.Cause.INVALID_VALUE, steady.location(),
-                "steady problems are not solved by this version yet; give an initial temperature and evaluate at"
-                    + " a large time, or remove steady");
+        boolean steady = false;
+        Node steadyNode = top.fields().get("steady");
+        if (steadyNode != null) {
+            if (steadyNode instanceof Node.Scalar s && s.value() instanceof Boolean b) {
+                steady = b;
+            } else {
+                c.problem(InputException.Cause.INVALID_VALUE, steadyNode.location(), "steady is true or false");
+            }
         }
-        Expression initial = null;
-        Node initialNode = c.required(top, "initial", "give the initial temperature, an expression of "
-            + String.join(", ", space) + " (for example \"20\")");
+        Expression initial = Expression.parse("0", space);
+        Node initialNode = steady ? top.fields().get("initial") : c.required(top, "initial",
+            "give the initial temperature, an expression of " + String.join(", ", space) + " (for example \"20\")");
         if (initialNode != null) {
             initial = c.expression(initialNode, space, "the initial temperature is an expression of "
                 + String.join(", ", space));
@@ -143,7 +146,7 @@ public final class ProblemFile {
         }
         c.throwIfAny();
         try {
-            return new Problem(domain, material, initial, source, boundary);
+            return new Problem(domain, material, initial, source, boundary, steady);
         } catch (IllegalArgumentException e) {
             throw new InputException(InputException.Cause.INVALID_VALUE, top.location(), e.getMessage());
         }

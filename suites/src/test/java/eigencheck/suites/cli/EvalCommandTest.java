@@ -84,6 +84,33 @@ class EvalCommandTest {
     }
 
     @Test
+    void steadyProblemsNeedNoTimeColumn() throws IOException {
+        // -k u'' = Q, u = 0 at both faces: u(L/2) = Q L^2/(8k) (common practice) = 1000 * 0.04 / 16 = 2.5
+        Path problem = file("steady.yaml", """
+            domain: {shape: slab, length: 0.2}
+            material: {conductivity: 2, volumetricHeatCapacity: 1e6}
+            steady: true
+            source: "1000"
+            boundary: {xmin: {dirichlet: "0"}, xmax: {dirichlet: "0"}}
+            """);
+        CliRun r = run("eval", problem.toString(), "--points", file("s.csv", "x\n0.1\n0.05\n").toString());
+        assertEquals(0, r.code(), r.err());
+        String[] lines = r.out().split("\n");
+        assertEquals("x,u,bound", lines[0]);
+        assertEquals(2.5, Double.parseDouble(lines[1].split(",")[1]), 1e-12);
+        Path timeDependent = file("bad-steady.yaml", """
+            domain: {shape: slab, length: 0.2}
+            material: {conductivity: 2, volumetricHeatCapacity: 1e6}
+            steady: true
+            source: "1000*t"
+            boundary: {xmin: {dirichlet: "0"}, xmax: {dirichlet: "0"}}
+            """);
+        CliRun bad = run("eval", timeDependent.toString(), "--points", file("t.csv", "x\n0.1\n").toString());
+        assertEquals(2, bad.code());
+        assertTrue(bad.err().contains("source: depends on t, but the problem is steady"), bad.err());
+    }
+
+    @Test
     void fluxQuantityWritesTheFluxColumn() throws IOException {
         CliRun r = run("eval", T3, "--points", file("c.csv", "x,t\n0.05,20\n").toString(), "--quantity", "flux");
         assertEquals(0, r.code(), r.err());
