@@ -2,7 +2,9 @@ package eigencheck.oracle;
 
 import eigencheck.oracle.problem.Problem;
 import eigencheck.oracle.problem.Slab;
+import eigencheck.oracle.problem.Sphere;
 import eigencheck.oracle.series.SlabSolver;
+import eigencheck.oracle.series.SphereMapping;
 import java.util.Arrays;
 import java.util.stream.IntStream;
 
@@ -41,11 +43,13 @@ public final class Oracle {
     private final Problem problem;
     private final SlabSolver slab;
     private final double tolerance;
+    private final boolean sphere;
 
-    private Oracle(Problem problem, SlabSolver slab, double tolerance) {
+    private Oracle(Problem problem, SlabSolver slab, double tolerance, boolean sphere) {
         this.problem = problem;
         this.slab = slab;
         this.tolerance = tolerance;
+        this.sphere = sphere;
     }
 
     /**
@@ -55,11 +59,16 @@ public final class Oracle {
      * @throws IllegalArgumentException if {@code tolerance} is not in (0, 1) or the horizon is negative
      */
     public static Oracle prepare(Problem problem, double timeHorizon, double tolerance) {
+        if (problem.domain() instanceof Sphere) {
+            // u = w/r with w the solution of the mapped slab problem
+            return new Oracle(problem, new SlabSolver(SphereMapping.toSlab(problem), timeHorizon, tolerance), tolerance,
+                true);
+        }
         if (!(problem.domain() instanceof Slab)) {
             throw new OracleException(OracleException.Reason.UNSUPPORTED,
-                "oracle: this version solves slabs; " + problem.domain() + " is not one yet");
+                "oracle: this version solves slabs and spheres; " + problem.domain() + " is not one yet");
         }
-        return new Oracle(problem, new SlabSolver(problem, timeHorizon, tolerance), tolerance);
+        return new Oracle(problem, new SlabSolver(problem, timeHorizon, tolerance), tolerance, false);
     }
 
     /** The problem this oracle solves. */
@@ -72,9 +81,12 @@ public final class Oracle {
         return tolerance;
     }
 
-    /** Temperature scale U the tolerance is relative to (see the class documentation). */
+    /**
+     * Temperature scale U the tolerance is relative to (see the class documentation); for a sphere,
+     * the mapped slab's scale divided by the radius.
+     */
     public double temperatureScale() {
-        return slab.scale();
+        return sphere ? slab.scale() / ((Sphere) problem.domain()).radius() : slab.scale();
     }
 
     /** Time horizon T prepared for. */
@@ -92,19 +104,45 @@ public final class Oracle {
         return slab.subtractions();
     }
 
-    /** u(x, t). @throws OracleException if outside the domain or not certified */
+    /** u(x, t) (for a sphere, x is the radius r). @throws OracleException if outside the domain or not certified */
     public Evaluation temperature(double x, double t) {
-        return slab.at(t).temperature(x);
+        return value(slab.at(t), x, t);
+    }
+
+    private Evaluation value(SlabSolver.Slice slice, double x, double t) {
+        if (!sphere) {
+            return slice.temperature(x);
+        }
+        if (t == 0 && !problem.steady()) {
+            // the initial temperature itself, where it is finite
+            double g = problem.initial().value(x);
+            if (!Double.isFinite(g)) {
+                throw new OracleException(OracleException.Reason.DATA_NOT_FINITE, "oracle: initial is " + g + " at r = "
+                    + x);
+            }
+            slice.temperature(x); // the mapped problem's checks (a jump of w at t = 0)
+            return new Evaluation(g, 4 * Math.ulp(1.0) * Math.max(Math.abs(g), 1e-3 * temperatureScale()));
+        }
+        return slice.valueOverX(x);
     }
 
     /** Heat flux -k du/dx (W/m^2, positive in +x). @throws OracleException if not certified */
     public Evaluation heatFlux(double x, double t) {
+        requireSlab("heat flux");
         return slab.at(t).heatFlux(x);
     }
 
     /** Exact mean of u over [x0, x1]. @throws OracleException if not certified */
     public Evaluation cellAverage(double x0, double x1, double t) {
+        requireSlab("cell average");
         return slab.at(t).cellAverage(x0, x1);
+    }
+
+    private void requireSlab(String what) {
+        if (sphere) {
+            throw new OracleException(OracleException.Reason.UNSUPPORTED, "oracle: the " + what + " of a sphere is not"
+                + " in this version; the temperature is");
+        }
     }
 
     /** Which quantity a bulk evaluation computes. */
@@ -156,7 +194,10 @@ public final class Oracle {
             for (int i = from; i < to; i++) {
                 int p = order[i];
                 try {
-                    Evaluation ev = quantity == Quantity.TEMPERATURE ? slice.temperature(x[p]) : slice.heatFlux(x[p]);
+                    if (sphere && quantity == Quantity.HEAT_FLUX) {
+                        requireSlab("heat flux");
+                    }
+                    Evaluation ev = quantity == Quantity.TEMPERATURE ? value(slice, x[p], t[p]) : slice.heatFlux(x[p]);
                     value[p] = ev.value();
                     bound[p] = ev.bound();
                 } catch (OracleException e) {

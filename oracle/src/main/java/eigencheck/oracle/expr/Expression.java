@@ -162,6 +162,23 @@ public final class Expression {
         return new Expression(a + "*[" + source + "] + " + b + "*[" + other.source + "]", variables, n);
     }
 
+    /** The same tree with one variable renamed (r read as x, say). */
+    public Expression renamed(String from, String to) {
+        int v = indexOf(from);
+        List<String> names = new java.util.ArrayList<>(variables);
+        names.set(v, to);
+        return new Expression(source, List.copyOf(names), root);
+    }
+
+    /** this * other over the same variables. */
+    public Expression times(Expression other) {
+        if (!other.variables.equals(variables)) {
+            throw new IllegalArgumentException("variables differ: " + variables + " and " + other.variables);
+        }
+        return new Expression("[" + source + "]*[" + other.source + "]", variables,
+            new Node.Binary(Node.Op.MUL, root, other.root));
+    }
+
     /** The tree written back as text in the expression language (fully parenthesised). */
     public String formula() {
         return Calculus.print(root, variables);

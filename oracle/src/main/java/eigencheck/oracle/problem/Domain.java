@@ -7,7 +7,7 @@ import java.util.List;
  *
  * @since 0.1
  */
-public sealed interface Domain permits Slab {
+public sealed interface Domain permits Slab, Sphere {
     /** The sides that need a boundary condition, in problem-file order. */
     List<Side> sides();
 

@@ -557,6 +557,52 @@ public final class SlabSolver {
             return certify(value, valueBound, "u", x);
         }
 
+        /**
+         * u(x)/x for a solution with u(0) = 0 at a Dirichlet face x = 0 (the sphere's w = r T gives
+         * T = w/r this way), summed term by term so that nothing cancels near x = 0: the modes as
+         * mu sinc(mu x), the quasi-static part by its Taylor expansion at 0 below x = 1e-3 L. The
+         * error e of the computed u vanishes at x = 0, so |e(x)/x| <= max |e'|: the bound is that of
+         * the gradient.
+         */
+        public Evaluation valueOverX(double x) {
+            checkSpace(x);
+            if (!leftDirichlet || Math.abs(leftData0) > 0 || t == 0) {
+                throw new OracleException(Reason.UNSUPPORTED, "oracle: u/x needs u = 0 at x = 0 and t > 0");
+            }
+            double sum = lift[1] + lift[2] * x + (Math.abs(lift[0]) > 0 ? lift[0] / Math.max(x, Double.MIN_VALUE) : 0);
+            int p = panelOf(fEdges, x);
+            double a = fEdges[p];
+            double b = fEdges[p + 1];
+            double extra;
+            if (x > 1e-3 * length) {
+                sum += Chebyshev.value(qs[p], Chebyshev.reference(x, a, b)) / x;
+                extra = 8 * EPS * Chebyshev.absSum(qs[p]) / x; // the division's amplified rounding
+            } else {
+                // q(x)/x = q'(0) + q''(0) x/2 + q'''(0) x^2/6 + q''''(c) x^3/24, as q(0) = 0
+                int p0 = panelOf(fEdges, 0);
+                double[] d1 = qsDerivative[p0];
+                double[] d2 = Chebyshev.derivative(d1, fEdges[p0], fEdges[p0 + 1]);
+                double[] d3 = Chebyshev.derivative(d2, fEdges[p0], fEdges[p0 + 1]);
+                double[] d4 = Chebyshev.derivative(d3, fEdges[p0], fEdges[p0 + 1]);
+                double s0 = Chebyshev.reference(0, fEdges[p0], fEdges[p0 + 1]);
+                sum += Chebyshev.value(d1, s0) + Chebyshev.value(d2, s0) * x / 2 + Chebyshev.value(d3, s0) * x * x / 6;
+                extra = Chebyshev.absSum(d4) * x * x * x / 24
+                    + 8 * EPS * (Chebyshev.absSum(d1) + Chebyshev.absSum(d2) * x + Chebyshev.absSum(d3) * x * x);
+            }
+            for (int i = 0; i < n; i++) {
+                double m = mu[i];
+                double arg = m * x;
+                double sinc = arg < 1e-4 ? 1 - arg * arg / 6 : Math.sin(arg) / arg;
+                sum += e[i] * m * sinc;
+            }
+            double bound = fluxBound / conductivity + extra;
+            double limit = tolerance * scale / length;
+            if (!(bound <= limit)) {
+                throw notCertified("u/x", x, bound, limit);
+            }
+            return new Evaluation(sum, bound);
+        }
+
         /** Heat flux -k du/dx (W/m^2) in the +x direction, with its bound. */
         public Evaluation heatFlux(double x) {
             checkSpace(x);

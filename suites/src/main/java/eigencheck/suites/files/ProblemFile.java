@@ -38,8 +38,13 @@ public final class ProblemFile {
         com.fasterxml.jackson.databind.ObjectMapper m = new com.fasterxml.jackson.databind.ObjectMapper();
         var root = m.createObjectNode();
         var domain = root.putObject("domain");
-        domain.put("shape", "slab");
-        domain.put("length", ((Slab) p.domain()).length());
+        if (p.domain() instanceof eigencheck.oracle.problem.Sphere sphere) {
+            domain.put("shape", "sphere");
+            domain.put("radius", sphere.radius());
+        } else {
+            domain.put("shape", "slab");
+            domain.put("length", ((Slab) p.domain()).length());
+        }
         var material = root.putObject("material");
         material.put("conductivity", p.material().conductivity());
         material.put("volumetricHeatCapacity", p.material().volumetricHeatCapacity());
@@ -91,7 +96,8 @@ public final class ProblemFile {
             material = material(c, materialNode);
         }
 
-        String[] space = domain == null ? new String[] {"x"} : domain.coordinates().toArray(String[]::new);
+        String[] space = domain == null ? (sidesOfShape(domainNode) != null && sidesOfShape(domainNode).size() == 1
+            ? new String[] {"r"} : new String[] {"x"}) : domain.coordinates().toArray(String[]::new);
         String[] spaceTime = new String[space.length + 1];
         System.arraycopy(space, 0, spaceTime, 0, space.length);
         spaceTime[space.length] = "t";
@@ -158,6 +164,10 @@ public final class ProblemFile {
             && "slab".equals(s.value())) {
             return List.of(Side.XMIN, Side.XMAX);
         }
+        if (domainNode instanceof Node.Obj o && o.fields().get("shape") instanceof Node.Scalar s
+            && "sphere".equals(s.value())) {
+            return List.of(Side.SURFACE);
+        }
         return null;
     }
 
@@ -180,9 +190,18 @@ public final class ProblemFile {
                 + (near != null ? " (did you mean \"" + near + "\"?)" : "") + "; allowed: " + String.join(", ", SHAPES));
             return null;
         }
+        if (shape.equals("sphere")) {
+            c.allowOnly(o, List.of("shape", "radius"));
+            Node radius = c.required(o, "radius", "the sphere's radius in m, for example 0.05");
+            if (radius == null) {
+                return null;
+            }
+            double r = c.positive(radius, "the sphere's radius in m");
+            return Double.isNaN(r) ? null : new eigencheck.oracle.problem.Sphere(r);
+        }
         if (!shape.equals("slab")) {
             c.problem(InputException.Cause.INVALID_VALUE, shapeNode.location(), "shape \"" + shape
-                + "\" is not solved by this version yet; use slab");
+                + "\" is not solved by this version yet; use slab or sphere");
             return null;
         }
         c.allowOnly(o, List.of("shape", "length"));

@@ -86,10 +86,22 @@ class ProblemFileTest {
     }
 
     @Test
+    void readsASphere() throws InputException {
+        Problem p = ProblemFile.fromTree(TreeReader.parse(Path.of("s.yaml"), """
+            domain: {shape: sphere, radius: 0.05}
+            material: {diffusivity: 1e-5}
+            initial: "20 + 100*r^2"
+            boundary: {surface: {robin: {h: 500, ambient: "300"}}}
+            """));
+        assertEquals(0.05, ((eigencheck.oracle.problem.Sphere) p.domain()).radius());
+        assertEquals(20.25, p.initial().value(0.05), 1e-12);
+    }
+
+    @Test
     void malformedYamlAndShapesOfLaterVersionsAreReported() {
         assertEquals(InputException.Cause.MALFORMED, fail("p.yaml", "domain: [1\n").cause());
         InputException e = fail("p.yaml", """
-            domain: {shape: sphere, radius: 1}
+            domain: {shape: cylinder, radius: 1}
             material: {diffusivity: 1}
             initial: "0"
             boundary: {surface: {dirichlet: "0"}}

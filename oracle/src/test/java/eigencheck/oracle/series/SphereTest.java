@@ -1,0 +1,99 @@
+package eigencheck.oracle.series;
+
+import static eigencheck.oracle.testing.NumericAssertions.assertCertified;
+import static eigencheck.oracle.testing.NumericAssertions.assertClose;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+
+import eigencheck.oracle.Oracle;
+import eigencheck.oracle.OracleException;
+import eigencheck.oracle.expr.Expression;
+import eigencheck.oracle.modes.RadialModes;
+import eigencheck.oracle.problem.BoundaryCondition;
+import eigencheck.oracle.problem.Material;
+import eigencheck.oracle.problem.Problem;
+import eigencheck.oracle.problem.Side;
+import eigencheck.oracle.problem.Sphere;
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+
+/** The solid sphere through w = r u (Carslaw and Jaeger 1959, section 9.2). */
+class SphereTest {
+    private static Problem sphere(double radius, Material m, String initial, String source, BoundaryCondition surface) {
+        return new Problem(new Sphere(radius), m, Expression.parse(initial, "r"), Expression.parse(source, "r", "t"),
+            Map.of(Side.SURFACE, surface));
+    }
+
+    @Test
+    void uniformSourceApproachesTheSteadyParabola() {
+        // steady u = u_s + Q (R^2 - r^2)/(6k) (common practice; the check 3), at t = 30 R^2/alpha
+        double radius = 0.1;
+        double k = 2;
+        double q = 1e4;
+        Material m = new Material(k, 1e6);
+        Problem p = sphere(radius, m, "0", Double.toString(q),
+            new BoundaryCondition.Dirichlet(Expression.parse("10", "t")));
+        double t = 30 * radius * radius / m.diffusivity();
+        Oracle o = Oracle.prepare(p, t, 1e-10);
+        for (int i = 0; i <= 10; i++) {
+            double r = radius * i / 10;
+            assertCertified(10 + q * (radius * radius - r * r) / (6 * k), o.temperature(r, t), "u at r = " + r);
+        }
+        assertCertified(10 + q * radius * radius / (6 * k), o.temperature(1e-7 * radius, t), "u near the centre");
+    }
+
+    @Test
+    void centreTemperatureGivesIncroperaOneTermCoefficientAtBiotOne() {
+        // Incropera et al. 2007, Table 5.1, sphere, Bi = 1: zeta_1 = 1.5708, C_1 = 1.2732 (from memory);
+        // uniform initial 1, ambient 0; once the second mode has decayed, u(0) = C_1 exp(-zeta_1^2 Fo)
+        double zeta1 = RadialModes.root(RadialModes.Shape.SPHERE, 1, 1.0);
+        double zeta2 = RadialModes.root(RadialModes.Shape.SPHERE, 2, 1.0);
+        assertClose(1.5708, zeta1, 0.5e-4, "zeta_1");
+        double fo = 30 / (zeta2 * zeta2 - zeta1 * zeta1);
+        Problem p = sphere(1, Material.ofDiffusivity(1), "1", "0",
+            new BoundaryCondition.Robin(1, Expression.parse("0", "t")));
+        Oracle o = Oracle.prepare(p, fo, 1e-12);
+        double c1 = o.temperature(0, fo).value() / Math.exp(-zeta1 * zeta1 * fo);
+        assertClose(1.2732, c1, 0.5e-4, "C_1");
+        assertClose(RadialModes.oneTermCoefficient(RadialModes.Shape.SPHERE, 1.0), c1, 1e-9, "C_1 closed form");
+    }
+
+    @Test
+    void manufacturedTransientIsReproducedWithFixedAndConvectiveSurfaces() {
+        // u = e^{-t}(1 + r^2): u_t = -u, lap u = 6 e^{-t}; Q = rho c u_t - k lap u; ambient for convection
+        // u_a = u + (k/h) u_r at R with u_r = 2 R e^{-t} (method of manufactured solutions)
+        double radius = 0.5;
+        double k = 2;
+        double rhoC = 3;
+        Material m = new Material(k, rhoC);
+        String source = rhoC + "*(-exp(-t)*(1 + r^2)) - 6*" + k + "*exp(-t)";
+        double h = 20; // Bi = 5
+        BoundaryCondition[] surfaces = {
+            new BoundaryCondition.Dirichlet(Expression.parse("exp(-t)*(1 + " + radius * radius + ")", "t")),
+            new BoundaryCondition.Robin(h, Expression.parse("exp(-t)*(1 + " + radius * radius + " + "
+                + 2 * k * radius / h + ")", "t"))};
+        for (BoundaryCondition surface : surfaces) {
+            Oracle o = Oracle.prepare(sphere(radius, m, "1 + r^2", source, surface), 2, 1e-10);
+            for (double t : new double[] {0.01, 0.3, 2}) {
+                for (double r : new double[] {0, 1e-6, 1e-4, 0.05, 0.2, 0.37, 0.5}) {
+                    assertCertified(Math.exp(-t) * (1 + r * r), o.temperature(r, t), surface.getClass().getSimpleName()
+                        + " at r = " + r + ", t = " + t);
+                }
+            }
+        }
+    }
+
+    @Test
+    void surfacesTheMappingCannotTakeAreRefusedWithTheReason() {
+        Material m = Material.ofDiffusivity(1);
+        OracleException lowBiot = assertThrows(OracleException.class, () -> Oracle.prepare(sphere(1, m, "1", "0",
+            new BoundaryCondition.Robin(0.5, Expression.parse("0", "t"))), 1, 1e-10));
+        assertEquals(OracleException.Reason.UNSUPPORTED, lowBiot.reason());
+        OracleException flux = assertThrows(OracleException.class, () -> Oracle.prepare(sphere(1, m, "1", "0",
+            new BoundaryCondition.Neumann(Expression.parse("0", "t"))), 1, 1e-10));
+        assertEquals(OracleException.Reason.UNSUPPORTED, flux.reason());
+        Oracle o = Oracle.prepare(sphere(1, m, "1", "0", new BoundaryCondition.Dirichlet(Expression.parse("0", "t"))), 1,
+            1e-10);
+        assertThrows(OracleException.class, () -> o.heatFlux(0.5, 0.5));
+    }
+}
