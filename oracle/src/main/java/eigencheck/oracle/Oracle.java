@@ -61,8 +61,7 @@ public final class Oracle {
     public static Oracle prepare(Problem problem, double timeHorizon, double tolerance) {
         if (problem.domain() instanceof Sphere) {
             // u = w/r with w the solution of the mapped slab problem
-            return new Oracle(problem, new SlabSolver(SphereMapping.toSlab(problem), timeHorizon, tolerance), tolerance,
-                true);
+            return new Oracle(problem, SphereMapping.solver(problem, timeHorizon, tolerance), tolerance, true);
         }
         if (!(problem.domain() instanceof Slab)) {
             throw new OracleException(OracleException.Reason.UNSUPPORTED,

@@ -43,8 +43,9 @@ public final class SlabModes {
         if (!(length > 0 && length < Double.POSITIVE_INFINITY)) {
             throw new IllegalArgumentException("length " + length + " must be finite and > 0");
         }
-        if (!(leftH >= 0) || !(rightH >= 0)) {
-            throw new IllegalArgumentException("H = h/k must be >= 0 (0 Neumann, infinity Dirichlet)");
+        if (!(leftH >= 0) || !(rightH >= 0 || (leftH == Double.POSITIVE_INFINITY && rightH * length > -1))) {
+            throw new IllegalArgumentException("H = h/k must be >= 0 (0 Neumann, infinity Dirichlet), or at x = L"
+                + " in (-1/L, 0) with Dirichlet at x = 0");
         }
         this.length = length;
         this.left = leftH;
@@ -113,7 +114,21 @@ public final class SlabModes {
             double muI = z / length;
             m[i] = muI;
             p[i] = Math.atan2(muI, left);
-            q[i] = 0.5 * length - Math.cos(z + 2 * p[i]) * Math.sin(z) / (2 * muI);
+            if (p[i] == 0 && z < 0.5) {
+                // sin modes with a small first root: L/2 - sin(2z)/(4 mu) = (L/2)(1 - sin(2z)/(2z)) by its series
+                double w = 2 * z;
+                double sum = 0;
+                double term = 1;
+                double factorial = 1;
+                for (int k = 1; k < 12; k++) {
+                    term *= w * w;
+                    factorial *= (2 * k) * (2 * k + 1);
+                    sum += ((k & 1) == 1 ? 1 : -1) * term / factorial;
+                }
+                q[i] = 0.5 * length * sum;
+            } else {
+                q[i] = 0.5 * length - Math.cos(z + 2 * p[i]) * Math.sin(z) / (2 * muI);
+            }
         }
         mu = m;
         phase = p;
@@ -131,8 +146,9 @@ public final class SlabModes {
         if (n < 1) {
             throw new IllegalArgumentException("mode index " + n + " must be >= 1");
         }
-        if (!(biotLeft >= 0) || !(biotRight >= 0)) {
-            throw new IllegalArgumentException("Biot numbers must be >= 0, got " + biotLeft + ", " + biotRight);
+        if (!(biotLeft >= 0) || !(biotRight > -1)) {
+            throw new IllegalArgumentException("Biot numbers must be >= 0 (at x = L above -1 with Dirichlet at"
+                + " x = 0), got " + biotLeft + ", " + biotRight);
         }
         if (biotLeft == 0 && biotRight == 0) {
             return n * Math.PI;
@@ -149,6 +165,18 @@ public final class SlabModes {
         double offset = (n - 1) * Math.PI;
         double lo = 0;
         double hi = Math.PI;
+        if (biotRight < 0) {
+            // Dirichlet at x = 0 and -1 < B < 0 (the sphere's w = r u at Bi = 1 + B < 1): G falls from
+            // G(0) = 0 to its minimum at z* = sqrt(-B - B^2), then rises; the root of the first mode lies
+            // beyond z*, and every later bracket is monotone already
+            if (!(biotLeft == Double.POSITIVE_INFINITY && biotRight > -1)) {
+                throw new IllegalArgumentException("a negative Biot number " + biotRight + " needs Dirichlet at x = 0"
+                    + " and B > -1");
+            }
+            if (n == 1) {
+                return firstRootNegative(-biotRight);
+            }
+        }
         double y = 0.5 * (lo + hi);
         for (int iteration = 0; iteration < 200; iteration++) {
             double z = offset + y;
@@ -173,9 +201,59 @@ public final class SlabModes {
         return offset + y;
     }
 
+    /**
+     * First root for Dirichlet at 0 and B = -c, 0 < c < 1: z = atan(z/c), written without cancellation
+     * as h(z) = (a - atan a) - z (1 - c)/c = 0 with a = z/c (the sphere's 1 - z cot z = Bi with
+     * Bi = 1 - c; for small Bi, z ~ sqrt(3 Bi)), the bracket running from the minimum of h,
+     * z* = sqrt(c - c^2), to pi.
+     */
+    private static double firstRootNegative(double c) {
+        double beta = 1 - c;
+        double lo = Math.sqrt(c - c * c);
+        double hi = Math.PI;
+        double z = Math.max(lo, Math.min(Math.sqrt(3 * beta), 0.5 * (lo + hi)));
+        for (int iteration = 0; iteration < 200; iteration++) {
+            double a = z / c;
+            double aMinusAtan;
+            if (a < 0.5) {
+                // a - atan a = sum_{k>=1} (-1)^(k+1) a^(2k+1)/(2k+1)
+                double sum = 0;
+                double power = a;
+                for (int k = 1; k < 30; k++) {
+                    power *= a * a;
+                    sum += ((k & 1) == 1 ? 1 : -1) * power / (2 * k + 1);
+                }
+                aMinusAtan = sum;
+            } else {
+                aMinusAtan = a - Math.atan(a);
+            }
+            double h = aMinusAtan - z * beta / c;
+            if (h > 0) {
+                hi = z;
+            } else if (h < 0) {
+                lo = z;
+            } else {
+                return z;
+            }
+            double dh = (a * a / (1 + a * a) - beta) / c;
+            double next = dh > 0 ? z - h / dh : Double.NaN;
+            if (!(next > lo && next < hi)) {
+                next = 0.5 * (lo + hi);
+            }
+            if (Math.abs(next - z) <= 2 * Math.ulp(z) || hi - lo <= 2 * Math.ulp(hi)) {
+                return next;
+            }
+            z = next;
+        }
+        return z;
+    }
+
     private static double derivativeOfPhase(double z, double biot) {
         if (biot == Double.POSITIVE_INFINITY || biot == 0) {
             return 0;
+        }
+        if (biot < 0) {
+            return biot / (biot * biot + z * z);
         }
         // d/dz atan2(z, B) = B/(B^2 + z^2), written to avoid overflow for large B
         double r = z / biot;

@@ -100,6 +100,7 @@ public final class SlabSolver {
 
     private volatile ModeTable table;
     private final boolean steady;
+    private final double rightCoefficient;
 
     /**
      * Prepares the series for {@code problem} on a slab over 0 <= t <= timeHorizon.
@@ -108,6 +109,16 @@ public final class SlabSolver {
      * @throws OracleException if the data are not finite or too rough to represent
      */
     public SlabSolver(Problem problem, double timeHorizon, double tolerance) {
+        this(problem, timeHorizon, tolerance, Double.NaN);
+    }
+
+    /**
+     * As {@link #SlabSolver(Problem, double, double)}, with the convection coefficient of a Robin
+     * face at x = L replaced by {@code rightCoefficient}, which may be negative down to -k/L when
+     * x = 0 is Dirichlet: what the sphere's w = r u needs at Bi < 1 (see {@link SphereMapping}).
+     * NaN keeps the problem's own coefficient.
+     */
+    SlabSolver(Problem problem, double timeHorizon, double tolerance, double rightCoefficient) {
         if (!(problem.domain() instanceof Slab slab)) {
             throw new OracleException(Reason.UNSUPPORTED, "oracle: " + problem.domain() + " is not a slab");
         }
@@ -128,8 +139,10 @@ public final class SlabSolver {
         this.steady = problem.steady();
         BoundaryCondition left = problem.condition(Side.XMIN);
         BoundaryCondition right = problem.condition(Side.XMAX);
+        this.rightCoefficient = rightCoefficient;
         this.leftH = homogeneousH(left, conductivity);
-        this.rightH = homogeneousH(right, conductivity);
+        this.rightH = Double.isNaN(rightCoefficient) ? homogeneousH(right, conductivity)
+            : rightCoefficient / conductivity;
         this.leftDirichlet = left instanceof BoundaryCondition.Dirichlet;
         this.rightDirichlet = right instanceof BoundaryCondition.Dirichlet;
         this.modes = new SlabModes(length, leftH, rightH);
@@ -1055,7 +1068,8 @@ public final class SlabSolver {
             // left: -k w_x = q0; right: k w_x = qL
             return atLeft ? new double[] {0, -k, 1, 0} : new double[] {0, k, 0, 1};
         }
-        double h = ((BoundaryCondition.Robin) c).heatTransferCoefficient();
+        double h = !atLeft && !Double.isNaN(rightCoefficient) ? rightCoefficient
+            : ((BoundaryCondition.Robin) c).heatTransferCoefficient();
         // left: k q = h (p - a0) -> h p - k q = h a0; right: -k q = h (p + q L - aL)
         return atLeft ? new double[] {h, -k, h, 0} : new double[] {h, k + h * l, 0, h};
     }

@@ -86,6 +86,18 @@ class RadialModesTest {
         }
     }
 
+    @ParameterizedTest(name = "Bi = {0}")
+    @ValueSource(doubles = {1e-6, 0.01, 0.1, 0.5, 0.9, 0.999})
+    void slabRootsWithANegativeFaceCoefficientAreTheSphereRoots(double biot) {
+        // w = r u: the slab with Dirichlet at 0 and B = Bi - 1 at L has the sphere's roots; two independent
+        // routes (safeguarded Newton on the phase form, Brent on (1 - Bi) sin z - z cos z)
+        for (int n = 1; n <= 8; n++) {
+            double sphere = RadialModes.root(Shape.SPHERE, n, biot);
+            double slab = SlabModes.root(n, Double.POSITIVE_INFINITY, biot - 1);
+            assertClose(sphere, slab, 1e-12 * Math.max(1, sphere), "root " + n + " at Bi = " + biot);
+        }
+    }
+
     private static double weight(Shape shape, double r) {
         return shape == Shape.CYLINDER ? r : r * r;
     }
