@@ -181,7 +181,7 @@ final class EvalCommand implements Callable<Integer> {
         }
         if (coordinates.size() != 1) {
             throw new InputException(InputException.Cause.INVALID_VALUE, InputLocation.of(file),
-                "this version evaluates slabs only (columns x,t)");
+                "this version evaluates one-coordinate domains (columns x,t for a slab, r,t for a sphere)");
         }
         List<String> needed = new ArrayList<>(coordinates);
         needed.add("t");
