@@ -262,10 +262,15 @@ public final class SuiteRunner {
             }
             String name = fieldName(c, f);
             eigencheck.suites.norms.Reference ref = c.manufactured() != null
-                ? new eigencheck.suites.norms.ManufacturedReference(c.manufactured(), t, 0) : new SlabReference(oracle, t, 0);
+                ? new eigencheck.suites.norms.ManufacturedReference(c.manufactured(), t, 0)
+                : c.problem().domain() instanceof eigencheck.oracle.problem.Sphere
+                ? new eigencheck.suites.norms.SphereReference(oracle, t) : new SlabReference(oracle, t, 0);
+            boolean slabProblem = c.problem() != null && c.problem().domain() instanceof Slab;
             String suffix = "@t=" + fmt(t);
             ErrorNorms.Result r;
-            if (c.compare().location().equals("cells") && !f.cellData().containsKey(name)) {
+            if (c.compare().location().equals("cells") && !f.cellData().containsKey(name) && !slabProblem) {
+                throw new IllegalArgumentException("compare.location cells with cell-centre values needs a slab problem");
+            } else if (c.compare().location().equals("cells") && !f.cellData().containsKey(name)) {
                 r = cellCentres(f, f.pointData().get(name), ref, ((Slab) c.problem().domain()).length());
             } else if (f.cellData().containsKey(name)) {
                 r = ErrorNorms.ofCellData(f, f.cellData().get(name), ref);
@@ -292,7 +297,7 @@ public final class SuiteRunner {
                 }
             }
             for (String face : c.compare().flux()) {
-                if (values != null && c.problem() != null) {
+                if (values != null && slabProblem) {
                     double length = ((Slab) c.problem().domain()).length();
                     double x = face.equals("xmin") ? 0 : length;
                     double exact = -c.problem().material().conductivity() * exactGradient(ref, x);
@@ -300,7 +305,7 @@ public final class SuiteRunner {
                     out.put("flux " + face + suffix, Math.abs(computed - exact));
                 }
             }
-            if (c.compare().heatContent() && values != null && c.problem() != null) {
+            if (c.compare().heatContent() && values != null && slabProblem) {
                 double length = ((Slab) c.problem().domain()).length();
                 double rhoC = c.problem().material().volumetricHeatCapacity();
                 double exact = rhoC * length * ref.segmentAverage(0, length);

@@ -113,9 +113,13 @@ public final class CsvFieldReader implements FieldReader {
                         + c + "\" in the header " + header + "; fix the coordinates option");
                 }
             }
+            if (coordinateColumns.isEmpty() && o.coordinates().isEmpty() && lower.get("r") != null) {
+                coordinateColumns.add(lower.get("r")); // a radial output: r is the coordinate
+            }
             if (coordinateColumns.isEmpty()) {
-                throw new InputException(Cause.MISSING, InputLocation.at(file, 1, 0, ""), "no coordinate column (x, y"
-                    + " or z) in the header " + header + "; name them, or give the coordinates option");
+                throw new InputException(Cause.MISSING, InputLocation.at(file, 1, 0, ""), "no coordinate column (x, y,"
+                    + " z, or r for a radial output) in the header " + header + "; name them, or give the coordinates"
+                    + " option");
             }
             int timeColumn = -1;
             if (o.time() != null) {

@@ -96,9 +96,13 @@ final class CompareCommand implements Callable<Integer> {
             throw new InputException(InputException.Cause.MISSING, InputLocation.of(output),
                 "the output gives no time; say which with --time");
         }
-        checkAxis(f, axisIndex);
+        boolean sphere = problem.domain() instanceof eigencheck.oracle.problem.Sphere;
+        if (!sphere) {
+            checkAxis(f, axisIndex);
+        }
         Oracle oracle = Oracle.prepare(problem, t, tolerance);
-        SlabReference reference = new SlabReference(oracle, t, axisIndex);
+        eigencheck.suites.norms.Reference reference = sphere ? new eigencheck.suites.norms.SphereReference(oracle, t)
+            : new SlabReference(oracle, t, axisIndex);
         String name = fieldName(f);
         ErrorNorms.Result r;
         try {
@@ -139,7 +143,8 @@ final class CompareCommand implements Callable<Integer> {
             out.printf(Locale.ROOT, "  l2      %s%n", r.l2() == null ? "(no cells)" : String.format(Locale.ROOT, "%.6e",
                 r.l2()));
             out.printf(Locale.ROOT, "  h1semi  %s%n", r.h1semi() == null ? (r.location().equals("cells")
-                ? "(cell data)" : "(no cells)") : String.format(Locale.ROOT, "%.6e", r.h1semi()));
+                ? "(cell data)" : r.l2() != null ? "(no gradient of this reference)" : "(no cells)")
+                : String.format(Locale.ROOT, "%.6e", r.h1semi()));
             out.flush();
         }
         return Main.OK;

@@ -54,7 +54,8 @@ public final class ErrorNorms {
             return new Result("points", n, max, rms, null, null);
         }
         double[] norms = finiteElement(field, values, reference, xyz);
-        return new Result("points", n, max, rms, Math.sqrt(norms[0]), Math.sqrt(norms[1]));
+        return new Result("points", n, max, rms, Math.sqrt(norms[0]),
+            reference.hasGradient() ? Math.sqrt(norms[1]) : null);
     }
 
     /** Norms of the cell-data array {@code values} against exact cell averages. */
@@ -159,7 +160,7 @@ public final class ErrorNorms {
         }
         double[] u = new double[total];
         double[] du = new double[3 * total];
-        reference.evaluate(qp, u, du);
+        reference.evaluate(qp, u, reference.hasGradient() ? du : null);
         double l2 = 0;
         double h1 = 0;
         double[] j = new double[9];

@@ -14,6 +14,11 @@ public interface Reference {
      */
     void evaluate(double[] xyz, double[] value, double[] gradient);
 
+    /** False when the reference gives no gradient (the H1 seminorm is then not computed). */
+    default boolean hasGradient() {
+        return true;
+    }
+
     /**
      * The output coordinate along which a one-dimensional reference varies (0, 1 or 2), or -1 for a
      * reference that varies in more than one direction.

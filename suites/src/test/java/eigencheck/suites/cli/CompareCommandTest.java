@@ -187,6 +187,42 @@ class CompareCommandTest {
     }
 
     @Test
+    void sphereOutputsAreReadAtTheirDistanceFromTheCentre() throws IOException {
+        // steady sphere, uniform source, fixed surface: u = 10 + Q (R^2 - r^2)/(6k) (common practice)
+        Path sphere = dir.resolve("sphere.yaml");
+        Files.writeString(sphere, """
+            domain: {shape: sphere, radius: 0.1}
+            material: {conductivity: 2, volumetricHeatCapacity: 1e6}
+            steady: true
+            source: "12000"
+            boundary: {surface: {dirichlet: "10"}}
+            """);
+        StringBuilder radial = new StringBuilder("r,T\n");
+        StringBuilder ray = new StringBuilder("{\"points\": [");
+        StringBuilder values = new StringBuilder();
+        for (int i = 0; i <= 4; i++) {
+            double r = 0.025 * i;
+            double u = 10 + 12000 * (0.01 - r * r) / 12 + (i == 2 ? 1e-3 : 0);
+            radial.append(r).append(',').append(u).append('\n');
+            // the same radii along the direction (2, 3, 6)/7
+            ray.append(i == 0 ? "" : ",").append('[').append(2 * r / 7).append(',').append(3 * r / 7).append(',')
+                .append(6 * r / 7).append(']');
+            values.append(i == 0 ? "" : ",").append(u);
+        }
+        Path csv = dir.resolve("radial.csv");
+        Files.writeString(csv, radial);
+        Path json = dir.resolve("ray.json");
+        Files.writeString(json, ray + "], \"pointData\": {\"T\": [" + values + "]}}");
+        for (Path out : new Path[] {csv, json}) {
+            CliRun r = CliRun.of("compare", sphere.toString(), out.toString(), "--json", "--time", "0");
+            assertEquals(0, r.code(), r.err());
+            JsonNode j = new ObjectMapper().readTree(r.out());
+            assertEquals(1e-3, j.get("max").asDouble(), 1e-9, out.getFileName().toString());
+            assertTrue(j.get("h1semi").isNull());
+        }
+    }
+
+    @Test
     void pointsWithoutCellsGiveNodalNormsOnlyAndBadOutputsAreNamed() throws IOException {
         Path csv = dir.resolve("nodes.csv");
         Files.writeString(csv, "x,T\n0,0\n500,0.26\n1000,0\n");
