@@ -140,8 +140,8 @@ public final class RadialModes {
         return 0.5 * radius * oneMinusSinc / (mu * mu);
     }
 
-    /** 1 - sin(w)/w = sum_{k>=1} (-1)^(k+1) w^(2k)/(2k+1)! for small w. */
-    private static double sincComplement(double w) {
+    /** 1 - sin(w)/w = sum_{k>=1} (-1)^(k+1) w^(2k)/(2k+1)! for small w (below 0.5). */
+    static double sincComplement(double w) {
         double sum = 0;
         double term = 1;
         double factorial = 1;

@@ -116,16 +116,7 @@ public final class SlabModes {
             p[i] = Math.atan2(muI, left);
             if (p[i] == 0 && z < 0.5) {
                 // sin modes with a small first root: L/2 - sin(2z)/(4 mu) = (L/2)(1 - sin(2z)/(2z)) by its series
-                double w = 2 * z;
-                double sum = 0;
-                double term = 1;
-                double factorial = 1;
-                for (int k = 1; k < 12; k++) {
-                    term *= w * w;
-                    factorial *= (2 * k) * (2 * k + 1);
-                    sum += ((k & 1) == 1 ? 1 : -1) * term / factorial;
-                }
-                q[i] = 0.5 * length * sum;
+                q[i] = 0.5 * length * RadialModes.sincComplement(2 * z);
             } else {
                 q[i] = 0.5 * length - Math.cos(z + 2 * p[i]) * Math.sin(z) / (2 * muI);
             }

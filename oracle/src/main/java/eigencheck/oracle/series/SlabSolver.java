@@ -429,29 +429,10 @@ public final class SlabSolver {
                 qs = new double[panels][];
                 qsDerivative = new double[panels][];
                 qsIntegral = new double[panels][];
-                double qsMagnitude = 0;
-                double running = 0;
-                for (int p = 0; p < panels; p++) {
-                    double[] c = qsCoef[0][p].clone();
-                    qs[p] = c;
-                    qsDerivative[p] = Chebyshev.derivative(c, fEdges[p], fEdges[p + 1]);
-                    double[] anti = Chebyshev.antiderivative(c, fEdges[p], fEdges[p + 1]);
-                    anti[0] += running;
-                    running = Chebyshev.value(anti, 1);
-                    qsIntegral[p] = anti;
-                    qsMagnitude += Chebyshev.absSum(c);
-                }
-                for (int i = 0; i < 2; i++) {
-                    for (int d = 0; d < 3; d++) {
-                        lift[d] = 0;
-                    }
-                }
-                for (int i = 0; i < 2; i++) {
-                    double b = data[i][0];
-                    for (int d = 0; d < 3; d++) {
-                        lift[d] += beta[i][d] * b;
-                    }
-                }
+                // steady data are constant in t: only the first Chebyshev coefficient in t is nonzero
+                double[] first = new double[qsCoef.length];
+                first[0] = 1;
+                double qsMagnitude = collapse(first);
                 double liftMagnitude = Math.abs(lift[0]) + Math.abs(lift[1]) * length;
                 double rounding = 8 * EPS * (qsMagnitude + liftMagnitude);
                 double qsDerivativeMagnitude = 0;
@@ -502,26 +483,7 @@ public final class SlabSolver {
             this.qs = new double[panels][];
             this.qsDerivative = new double[panels][];
             this.qsIntegral = new double[panels][];
-            double qsMagnitude = 0;
-            double running = 0;
-            for (int p = 0; p < panels; p++) {
-                int len = qsCoef[0][p].length;
-                double[] c = new double[len];
-                for (int k = 0; k < qsCoef.length; k++) {
-                    double w = tk[k];
-                    double[] src = qsCoef[k][p];
-                    for (int j = 0; j < len; j++) {
-                        c[j] += w * src[j];
-                    }
-                }
-                qs[p] = c;
-                qsDerivative[p] = Chebyshev.derivative(c, fEdges[p], fEdges[p + 1]);
-                double[] anti = Chebyshev.antiderivative(c, fEdges[p], fEdges[p + 1]);
-                anti[0] += running;
-                running = Chebyshev.value(anti, 1);
-                qsIntegral[p] = anti;
-                qsMagnitude += Chebyshev.absSum(c);
-            }
+            double qsMagnitude = collapse(tk);
             double liftMagnitude = Math.abs(lift[0]) + Math.abs(lift[1]) * length + Math.abs(lift[2]) * length * length;
             double rounding = 8 * EPS * (magnitude + qsMagnitude + liftMagnitude + Math.abs(a0));
             double representation = deltaF * Math.min(t, steadyGain) + deltaV0 + deltaData * dataGain(t)
@@ -553,6 +515,37 @@ public final class SlabSolver {
                 this.spacing = 0;
                 this.offset = 0;
             }
+        }
+
+        /**
+         * The quasi-static part at this time, sum_k qsCoef[k] T_k(t), per panel, with its derivative and
+         * its antiderivative (continuous across panels); returns the sum of |coefficients|.
+         */
+        private double collapse(double[] tk) {
+            double magnitude = 0;
+            double running = 0;
+            for (int p = 0; p < qs.length; p++) {
+                int len = qsCoef[0][p].length;
+                double[] c = new double[len];
+                for (int k = 0; k < qsCoef.length; k++) {
+                    double w = tk[k];
+                    if (w == 0) {
+                        continue;
+                    }
+                    double[] src = qsCoef[k][p];
+                    for (int j = 0; j < len; j++) {
+                        c[j] += w * src[j];
+                    }
+                }
+                qs[p] = c;
+                qsDerivative[p] = Chebyshev.derivative(c, fEdges[p], fEdges[p + 1]);
+                double[] anti = Chebyshev.antiderivative(c, fEdges[p], fEdges[p + 1]);
+                anti[0] += running;
+                running = Chebyshev.value(anti, 1);
+                qsIntegral[p] = anti;
+                magnitude += Chebyshev.absSum(c);
+            }
+            return magnitude;
         }
 
         /** Modes summed at this time. */
