@@ -1,10 +1,16 @@
 package eigencheck.oracle;
 
+import eigencheck.oracle.problem.Box;
+import eigencheck.oracle.problem.Cylinder;
 import eigencheck.oracle.problem.Problem;
+import eigencheck.oracle.problem.Rectangle;
 import eigencheck.oracle.problem.Slab;
 import eigencheck.oracle.problem.Sphere;
+import eigencheck.oracle.series.CylinderSolver;
 import eigencheck.oracle.series.SlabSolver;
+import eigencheck.oracle.series.SpatialSolver;
 import eigencheck.oracle.series.SphereMapping;
+import eigencheck.oracle.series.TensorSolver;
 import java.util.Arrays;
 import java.util.stream.IntStream;
 
@@ -34,6 +40,13 @@ import java.util.stream.IntStream;
  * <li>Rounding: (64 + 2 n_t) ulps times the sum of the magnitudes of the terms.</li>
  * </ul>
  *
+ * <h2>Rectangle, box and cylinder</h2>
+ * The rectangle and box are solved by superposition of a source part, one elliptic series per face
+ * with data and a decaying tensor-product transient; the cylinder by its J0 modes about the steady
+ * state. Both take source and face data constant in time in this version; how they are bounded is on
+ * {@code TensorSolver} and {@code CylinderSolver}. Points are given as arrays of their coordinates
+ * (x, y[, z] or r); gradients are certified to tolerance * U / L.
+ *
  * @since 0.1
  */
 public final class Oracle {
@@ -44,12 +57,22 @@ public final class Oracle {
     private final SlabSolver slab;
     private final double tolerance;
     private final boolean sphere;
+    private final SpatialSolver spatial;
 
     private Oracle(Problem problem, SlabSolver slab, double tolerance, boolean sphere) {
         this.problem = problem;
         this.slab = slab;
         this.tolerance = tolerance;
         this.sphere = sphere;
+        this.spatial = null;
+    }
+
+    private Oracle(Problem problem, SpatialSolver spatial, double tolerance) {
+        this.problem = problem;
+        this.slab = null;
+        this.tolerance = tolerance;
+        this.sphere = false;
+        this.spatial = spatial;
     }
 
     /**
@@ -63,9 +86,15 @@ public final class Oracle {
             // u = w/r with w the solution of the mapped slab problem
             return new Oracle(problem, SphereMapping.solver(problem, timeHorizon, tolerance), tolerance, true);
         }
+        if (problem.domain() instanceof Rectangle || problem.domain() instanceof Box) {
+            return new Oracle(problem, new TensorSolver(problem, timeHorizon, tolerance), tolerance);
+        }
+        if (problem.domain() instanceof Cylinder) {
+            return new Oracle(problem, new CylinderSolver(problem, timeHorizon, tolerance), tolerance);
+        }
         if (!(problem.domain() instanceof Slab)) {
             throw new OracleException(OracleException.Reason.UNSUPPORTED,
-                "oracle: this version solves slabs and spheres; " + problem.domain() + " is not one yet");
+                "oracle: " + problem.domain() + " is not solved by this version");
         }
         return new Oracle(problem, new SlabSolver(problem, timeHorizon, tolerance), tolerance, false);
     }
@@ -85,27 +114,186 @@ public final class Oracle {
      * the mapped slab's scale divided by the radius.
      */
     public double temperatureScale() {
+        if (spatial != null) {
+            return spatial.scale();
+        }
         return sphere ? slab.scale() / ((Sphere) problem.domain()).radius() : slab.scale();
     }
 
     /** Time horizon T prepared for. */
     public double timeHorizon() {
-        return slab.horizon();
+        return spatial != null ? spatial.horizon() : slab.horizon();
     }
 
-    /** Number of modes the series sums at time t. */
+    /** Number of coordinates of a point: 1 for the slab, cylinder and sphere, 2 or 3 for the rectangle and box. */
+    public int dimension() {
+        return spatial != null ? spatial.dimension() : 1;
+    }
+
+    /** Number of modes the series sums at time t (for the rectangle and box, of the transient part). */
     public int modesUsed(double t) {
-        return slab.at(t).modes();
+        return spatial != null ? spatial.at(t).modes() : slab.at(t).modes();
     }
 
     /** Number of quasi-static subtractions applied (0 to 2); each speeds the tail by n^-2. */
     public int quasiStaticSubtractions() {
-        return slab.subtractions();
+        return spatial != null ? 0 : slab.subtractions();
     }
 
-    /** u(x, t) (for a sphere, x is the radius r). @throws OracleException if outside the domain or not certified */
+    /** u(x, t) (for a sphere or cylinder, x is the radius r). @throws OracleException if outside the domain or not certified */
     public Evaluation temperature(double x, double t) {
+        if (spatial != null) {
+            return temperature(new double[] {x}, t);
+        }
         return value(slab.at(t), x, t);
+    }
+
+    /**
+     * u at a point given by its {@link #dimension()} coordinates (x, y[, z] or r).
+     *
+     * @throws OracleException if outside the domain or not certified
+     */
+    public Evaluation temperature(double[] point, double t) {
+        requireDimension(point);
+        if (spatial == null) {
+            return temperature(point[0], t);
+        }
+        return spatial.at(t).temperature(point, 0);
+    }
+
+    /**
+     * grad u at a point (K/m), each component with the same bound (certified to tolerance * U / L).
+     *
+     * @throws OracleException if outside the domain, at t = 0, or not certified
+     */
+    public Evaluation[] gradient(double[] point, double t) {
+        requireDimension(point);
+        double[] g = new double[point.length];
+        double bound;
+        if (spatial != null) {
+            bound = spatial.at(t).gradient(point, 0, g, 0);
+        } else {
+            bound = oneDimensionalGradient(point[0], t, g);
+        }
+        Evaluation[] out = new Evaluation[g.length];
+        for (int i = 0; i < g.length; i++) {
+            out[i] = new Evaluation(g[i], bound);
+        }
+        return out;
+    }
+
+    private double oneDimensionalGradient(double x, double t, double[] g) {
+        double k = problem.material().conductivity();
+        if (sphere) {
+            Evaluation e = SphereMapping.gradient(slab.at(t), x, ((Sphere) problem.domain()).radius(),
+                tolerance * temperatureScale());
+            g[0] = e.value();
+            return e.bound();
+        }
+        Evaluation flux = slab.at(t).heatFlux(x);
+        g[0] = -flux.value() / k;
+        return flux.bound() / k;
+    }
+
+    private void requireDimension(double[] point) {
+        if (point.length != dimension()) {
+            throw new IllegalArgumentException("a point of " + problem.domain() + " has " + dimension()
+                + " coordinates " + problem.domain().coordinates() + ", not " + point.length);
+        }
+    }
+
+    /**
+     * Evaluates many points of any body: {@code points} holds {@link #dimension()} coordinates per
+     * point. Groups by time like {@link #evaluate}; {@code gradient} (n * dimension values, one bound
+     * per point in {@code gradientBound}) may be null.
+     *
+     * @throws OracleException for the first point (lowest index) that is refused, "point i: ..."
+     */
+    public void evaluatePoints(double[] points, double[] t, double[] value, double[] bound, double[] gradient,
+                               double[] gradientBound) {
+        int dim = dimension();
+        int n = t.length;
+        if (points.length != n * dim || value.length < n || bound.length < n
+            || (gradient != null && (gradient.length < n * dim || gradientBound.length < n))) {
+            throw new IllegalArgumentException("points must hold " + dim + " coordinates per time, and the outputs"
+                + " room for them");
+        }
+        if (spatial == null) {
+            double[] x = points;
+            evaluate(Quantity.TEMPERATURE, x, t, value, bound);
+            if (gradient != null) {
+                for (int i = 0; i < n; i++) {
+                    double[] g = new double[1];
+                    try {
+                        gradientBound[i] = oneDimensionalGradient(x[i], t[i], g);
+                    } catch (OracleException e) {
+                        throw new OracleException(e.reason(), "point " + i + ": " + e.getMessage());
+                    }
+                    gradient[i] = g[0];
+                }
+            }
+            return;
+        }
+        Integer[] order = byTime(t);
+        int[] starts = runs(order, t);
+        int runCount = starts.length - 1;
+        int[] failed = {Integer.MAX_VALUE};
+        OracleException[] failure = new OracleException[1];
+        IntStream.range(0, runCount).parallel().forEach(r -> {
+            int from = starts[r];
+            int to = starts[r + 1];
+            SpatialSolver.Slice slice;
+            try {
+                slice = spatial.at(t[order[from]]);
+            } catch (OracleException e) {
+                record(failed, failure, minIndex(order, from, to), e);
+                return;
+            }
+            // points of one time in parallel blocks
+            int blocks = Math.max(1, Math.min(64, (to - from) / 256));
+            IntStream.range(0, blocks).parallel().forEach(b -> {
+                int lo = from + (int) ((long) (to - from) * b / blocks);
+                int hi = from + (int) ((long) (to - from) * (b + 1) / blocks);
+                for (int i = lo; i < hi; i++) {
+                    int p = order[i];
+                    try {
+                        Evaluation ev = slice.temperature(points, p * dim);
+                        value[p] = ev.value();
+                        bound[p] = ev.bound();
+                        if (gradient != null) {
+                            gradientBound[p] = slice.gradient(points, p * dim, gradient, p * dim);
+                        }
+                    } catch (OracleException e) {
+                        record(failed, failure, p, e);
+                    }
+                }
+            });
+        });
+        if (failure[0] != null) {
+            throw new OracleException(failure[0].reason(), "point " + failed[0] + ": " + failure[0].getMessage());
+        }
+    }
+
+    private static Integer[] byTime(double[] t) {
+        Integer[] order = new Integer[t.length];
+        for (int i = 0; i < t.length; i++) {
+            order[i] = i;
+        }
+        Arrays.sort(order, (a, b) -> Double.compare(t[a], t[b]));
+        return order;
+    }
+
+    private static int[] runs(Integer[] order, double[] t) {
+        int n = order.length;
+        int[] starts = new int[n + 1];
+        int runs = 0;
+        for (int i = 0; i < n; i++) {
+            if (i == 0 || Double.compare(t[order[i]], t[order[i - 1]]) != 0) {
+                starts[runs++] = i;
+            }
+        }
+        starts[runs] = n;
+        return Arrays.copyOf(starts, runs + 1);
     }
 
     private Evaluation value(SlabSolver.Slice slice, double x, double t) {
@@ -127,12 +315,23 @@ public final class Oracle {
 
     /** Heat flux -k du/dx (W/m^2, positive in +x). @throws OracleException if not certified */
     public Evaluation heatFlux(double x, double t) {
+        if (spatial != null) {
+            throw new OracleException(OracleException.Reason.UNSUPPORTED, "oracle: heatFlux(x, t) is the slab's; use"
+                + " gradient(point, t) for " + problem.domain());
+        }
         requireSlab("heat flux");
         return slab.at(t).heatFlux(x);
     }
 
     /** Exact mean of u over [x0, x1]. @throws OracleException if not certified */
     public Evaluation cellAverage(double x0, double x1, double t) {
+        if (sphere) {
+            return SphereMapping.shellAverage(slab.at(t), x0, x1, tolerance * temperatureScale());
+        }
+        if (spatial != null) {
+            throw new OracleException(OracleException.Reason.UNSUPPORTED, "oracle: cell averages of " + problem.domain()
+                + " are not in this version; values and gradients are");
+        }
         requireSlab("cell average");
         return slab.at(t).cellAverage(x0, x1);
     }
@@ -162,6 +361,14 @@ public final class Oracle {
         int n = x.length;
         if (t.length != n || value.length < n || bound.length < n) {
             throw new IllegalArgumentException("x, t, value and bound must have the same length");
+        }
+        if (spatial != null) {
+            if (spatial.dimension() != 1 || quantity != Quantity.TEMPERATURE) {
+                throw new OracleException(OracleException.Reason.UNSUPPORTED, "oracle: evaluate(x, t) is for one"
+                    + " coordinate and the temperature; use evaluatePoints for " + problem.domain());
+            }
+            evaluatePoints(x, t, value, bound, null, null);
+            return;
         }
         Integer[] order = new Integer[n];
         for (int i = 0; i < n; i++) {

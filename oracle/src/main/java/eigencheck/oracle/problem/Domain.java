@@ -7,7 +7,7 @@ import java.util.List;
  *
  * @since 0.1
  */
-public sealed interface Domain permits Slab, Sphere {
+public sealed interface Domain permits Slab, Rectangle, Box, Cylinder, Sphere {
     /** The sides that need a boundary condition, in problem-file order. */
     List<Side> sides();
 
@@ -16,4 +16,9 @@ public sealed interface Domain permits Slab, Sphere {
 
     /** Characteristic length L (m): the diffusion time scale is L^2/alpha. */
     double characteristicLength();
+
+    /** Edge lengths along x, y (and z) for the slab, rectangle and box; empty for radial bodies. */
+    default double[] lengths() {
+        return new double[0];
+    }
 }

@@ -60,10 +60,53 @@ public final class Manufactured {
         return new Problem(slab, material, initial, source, boundary);
     }
 
+    /**
+     * The rectangle or box problem whose exact solution is {@code u}, an expression of the domain's
+     * coordinates and t: Q = rho c u_t - k lap(u), face data as for the slab, each over the coordinates
+     * along its face and t.
+     *
+     * @param faces one request per side of the domain
+     * @throws IllegalArgumentException if u uses other variables or a side has no request
+     */
+    public static Problem cartesian(Expression u, Domain domain, Material material, Map<Side, Face> faces) {
+        java.util.List<String> coordinates = domain.coordinates();
+        String[] names = new String[coordinates.size() + 1];
+        for (int i = 0; i < coordinates.size(); i++) {
+            names[i] = coordinates.get(i);
+        }
+        names[coordinates.size()] = "t";
+        Expression ux = u.over(names);
+        double k = material.conductivity();
+        Expression laplacian = null;
+        for (String c : coordinates) {
+            Expression second = ux.derivative(c).derivative(c);
+            laplacian = laplacian == null ? second : laplacian.linear(1, second, 1);
+        }
+        Expression source = ux.derivative("t").linear(material.volumetricHeatCapacity(), laplacian, -k);
+        Expression initial = ux.substitute("t", 0.0);
+        double[] lengths = domain.lengths();
+        Map<Side, BoundaryCondition> boundary = new EnumMap<>(Side.class);
+        Side[][] sides = {{Side.XMIN, Side.XMAX}, {Side.YMIN, Side.YMAX}, {Side.ZMIN, Side.ZMAX}};
+        for (int i = 0; i < coordinates.size(); i++) {
+            for (int s = 0; s < 2; s++) {
+                Face f = faces.get(sides[i][s]);
+                if (f == null) {
+                    throw new IllegalArgumentException("manufactured: no condition requested for " + sides[i][s].key());
+                }
+                boundary.put(sides[i][s], face(ux, coordinates.get(i), s == 0 ? 0.0 : lengths[i], s == 0 ? -1 : 1, f, k));
+            }
+        }
+        return new Problem(domain, material, initial, source, boundary);
+    }
+
     /** Condition at x = position with outward normal sign (du/dn = sign * u_x). */
     private static BoundaryCondition face(Expression u, double position, int sign, Face face, double k) {
-        Expression value = u.substitute("x", position);
-        Expression normal = u.derivative("x").substitute("x", position);
+        return face(u, "x", position, sign, face, k);
+    }
+
+    private static BoundaryCondition face(Expression u, String axis, double position, int sign, Face face, double k) {
+        Expression value = u.substitute(axis, position);
+        Expression normal = u.derivative(axis).substitute(axis, position);
         switch (face.kind()) {
             case DIRICHLET:
                 return new BoundaryCondition.Dirichlet(value);

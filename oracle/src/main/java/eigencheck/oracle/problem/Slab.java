@@ -28,4 +28,9 @@ public record Slab(double length) implements Domain {
     public double characteristicLength() {
         return length;
     }
+
+    @Override
+    public double[] lengths() {
+        return new double[] {length};
+    }
 }

@@ -548,6 +548,11 @@ public final class SlabSolver {
             return magnitude;
         }
 
+        /** Conductivity k of the problem (W/(m K)). */
+        public double conductivity() {
+            return conductivity;
+        }
+
         /** Modes summed at this time. */
         public int modes() {
             return n;

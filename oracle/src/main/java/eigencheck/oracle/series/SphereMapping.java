@@ -1,5 +1,6 @@
 package eigencheck.oracle.series;
 
+import eigencheck.oracle.Evaluation;
 import eigencheck.oracle.OracleException;
 import eigencheck.oracle.OracleException.Reason;
 import eigencheck.oracle.expr.Expression;
@@ -75,5 +76,65 @@ public final class SphereMapping {
         faces.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("0", "t")));
         faces.put(Side.XMAX, outer);
         return new Problem(new Slab(radius), sphere.material(), initialW, sourceW, faces, sphere.steady());
+    }
+
+    /**
+     * du/dr = (w' - w/r)/r from the slab slice of w (w' = -flux/k, w/r by {@link SlabSolver.Slice#valueOverX});
+     * 0 at the centre by symmetry. The bound grows like 1/r toward the centre, where it is refused once
+     * it passes {@code budget}/R.
+     */
+    public static Evaluation gradient(SlabSolver.Slice w, double r, double radius, double budget) {
+        if (r == 0) {
+            w.temperature(0); // the slice's own checks
+            return new Evaluation(0, 0);
+        }
+        double k = w.conductivity();
+        Evaluation flux = w.heatFlux(r);
+        Evaluation over = w.valueOverX(r);
+        double value = (-flux.value() / k - over.value()) / r;
+        double bound = (flux.bound() / k + over.bound() + 4 * Math.ulp(1.0) * (Math.abs(flux.value() / k)
+            + Math.abs(over.value()))) / r;
+        if (!(bound <= budget / radius)) {
+            throw new OracleException(Reason.NOT_CERTIFIED, "oracle: du/dr of the sphere at r = " + r + " m has bound "
+                + bound + " > " + budget / radius + "; near the centre the division by r amplifies the error (du/dr = 0"
+                + " at r = 0 exactly)");
+        }
+        return new Evaluation(value, bound);
+    }
+
+    /**
+     * The mean of u over the shell a < r < b, weight r^2: \(3\int_a^b w r\,dr/(b^3 - a^3)\) by
+     * Gauss-Legendre on w r (w is smooth for t > 0), the quadrature error measured against a rule half as
+     * fine again (times 10).
+     */
+    public static Evaluation shellAverage(SlabSolver.Slice w, double a, double b, double budget) {
+        if (!(a >= 0 && b > a)) {
+            throw new OracleException(Reason.OUTSIDE_DOMAIN, "oracle: shell " + a + " < r < " + b + " m needs 0 <= a < b");
+        }
+        double[] sums = new double[2];
+        double bound = 0;
+        int[] orders = {24, 36};
+        for (int pass = 0; pass < 2; pass++) {
+            GaussLegendre g = GaussLegendre.of(orders[pass]);
+            double sum = 0;
+            double err = 0;
+            for (int i = 0; i < g.nodes.length; i++) {
+                double r = 0.5 * (a + b) + 0.5 * (b - a) * g.nodes[i];
+                Evaluation e = w.temperature(r);
+                double weight = 0.5 * (b - a) * g.weights[i] * r;
+                sum += weight * e.value();
+                err += Math.abs(weight) * e.bound();
+            }
+            sums[pass] = sum;
+            bound = Math.max(bound, err);
+        }
+        double volume = (b * b * b - a * a * a) / 3;
+        double value = sums[1] / volume;
+        double total = (bound + 10 * Math.abs(sums[1] - sums[0]) + 8 * Math.ulp(1.0) * Math.abs(sums[1])) / volume;
+        if (!(total <= budget)) {
+            throw new OracleException(Reason.NOT_CERTIFIED, "oracle: the shell average over " + a + " < r < " + b
+                + " m has bound " + total + " > " + budget);
+        }
+        return new Evaluation(value, total);
     }
 }

@@ -41,6 +41,22 @@ class SphereTest {
             assertCertified(10 + q * (radius * radius - r * r) / (6 * k), o.temperature(r, t), "u at r = " + r);
         }
         assertCertified(10 + q * radius * radius / (6 * k), o.temperature(1e-7 * radius, t), "u near the centre");
+        // gradient -Q r/(3k) and shell means of the same parabola (common practice)
+        double limit = 1e-10 * o.temperatureScale();
+        for (int i = 1; i <= 10; i++) {
+            double r = radius * i / 10;
+            eigencheck.oracle.testing.NumericAssertions.assertWithin(-q * r / (3 * k),
+                o.gradient(new double[] {r}, t)[0], limit / radius, "du/dr at r = " + r);
+        }
+        assertEquals(0, o.gradient(new double[] {0}, t)[0].value(), "du/dr at the centre");
+        for (double[] shell : new double[][] {{0, 0.03}, {0.03, 0.07}, {0.09, 0.1}}) {
+            double a = shell[0];
+            double b = shell[1];
+            double mean = 10 + q / (6 * k) * (radius * radius - 3 * (Math.pow(b, 5) - Math.pow(a, 5))
+                / (5 * (Math.pow(b, 3) - Math.pow(a, 3))));
+            eigencheck.oracle.testing.NumericAssertions.assertWithin(mean, o.cellAverage(a, b, t), limit,
+                "shell " + a + " to " + b);
+        }
     }
 
     @Test

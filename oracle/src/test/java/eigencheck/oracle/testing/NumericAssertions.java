@@ -43,6 +43,21 @@ public final class NumericAssertions {
         }
     }
 
+    /**
+     * Asserts |value - exact| <= bound <= limit: an honest bound within the tolerance, without asking
+     * tightness (the multi-dimensional series size their modes so that the rigorous bound meets the
+     * tolerance, which is looser than the error they reach).
+     */
+    public static void assertWithin(double exact, Evaluation e, double limit, String context) {
+        double error = Math.abs(e.value() - exact);
+        assertTrue(error <= e.bound(), () -> context + ": error " + error + " exceeds the bound " + e.bound()
+            + " (value " + e.value() + ", exact " + exact + ")");
+        assertTrue(e.bound() <= limit, () -> context + ": bound " + e.bound() + " above the limit " + limit);
+        synchronized (NumericAssertions.class) {
+            checked++;
+        }
+    }
+
     /** Asserts |actual - expected| <= tolerance with a message; rejects a negative or NaN tolerance. */
     public static void assertClose(double expected, double actual, double tolerance, String context) {
         if (!(tolerance >= 0)) {

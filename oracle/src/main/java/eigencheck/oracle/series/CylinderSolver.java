@@ -1,0 +1,420 @@
+package eigencheck.oracle.series;
+
+import eigencheck.oracle.Evaluation;
+import eigencheck.oracle.OracleException;
+import eigencheck.oracle.OracleException.Reason;
+import eigencheck.oracle.expr.Expression;
+import eigencheck.oracle.modes.RadialModes;
+import eigencheck.oracle.problem.BoundaryCondition;
+import eigencheck.oracle.problem.Cylinder;
+import eigencheck.oracle.problem.Problem;
+import eigencheck.oracle.problem.Side;
+import java.util.SplittableRandom;
+
+/**
+ * The solid cylinder, radially symmetric (infinitely long or with insulated ends): u = A t + P(r) + V.
+ * <ul>
+ * <li>P solves \(-k (r P')'/r = Q - \rho c A\) with the surface condition; A = 0 except with a flux
+ * surface, where \(A = (2q/R + (2/R^2)\int_0^R Q r\,dr)/(\rho c)\) is the mean heating rate and P is
+ * fixed by P(R) = 0. With \(J(r) = r\int_0^1 s\,\tilde Q(rs)\,ds\) (Gauss-Legendre, exact at r = 0),
+ * \(P' = -J/k\) and \(P(r) = P(R) + \int_r^R J/k\); J is a Chebyshev series on [0, R] of adaptive
+ * length (its integral exact), its error measured at random points (times 10).</li>
+ * <li>V: \(\sum_n c_n e^{-\alpha\beta_n^2 t} J_0(\beta_n r)\) with \(\beta_n R\) the roots of
+ * {@link RadialModes} (and the zero mode of the flux surface), \(c_n\) the projection of g - P with
+ * weight r (Gauss-Legendre, error against a rule 25 % finer, times 10).</li>
+ * </ul>
+ * Truncation: \(|c_n| \le \|g - P\|/\|J_0(\beta_n r)\|\) (Cauchy-Schwarz), \(|J_0|, |J_1| \le 1\),
+ * \(\beta_n \ge (n-1)\pi/R\) and, beyond the computed modes, \(\|J_0(\beta_n r)\|^2 \ge R^2/(2\pi z_n)\)
+ * (half the large-z value of \(R^2(J_0^2+J_1^2)/2\); an asymptotic estimate with a factor 2 of margin,
+ * checked against the computed norms in CylinderTest). Source and surface data must be constant in t.
+ */
+public final class CylinderSolver implements SpatialSolver {
+    private static final double EPS = Math.ulp(1.0);
+    private static final int CAP = 4000;
+
+    private final double radius;
+    private final double k;
+    private final double rhoC;
+    private final double alpha;
+    private final double tolerance;
+    private final double horizon;
+    private final boolean steady;
+    private final double biot;
+    private final boolean flux;
+    private final double drift;
+    private final double surfaceValue;
+    private final double[] j; // Chebyshev series of J on [0, R]
+    private final double[] jIntegral; // its antiderivative from 0
+    private final double steadyError;
+    private final double gradientError;
+    private final Expression initial;
+    private final double scale;
+    private double[] beta = new double[0];
+    private double[] norm = new double[0];
+    private double[] coef = new double[0];
+    private double coefError;
+    private double tailCoefficient;
+
+    public CylinderSolver(Problem problem, double timeHorizon, double tolerance) {
+        if (!(tolerance > 0 && tolerance < 1)) {
+            throw new IllegalArgumentException("tolerance " + tolerance + " must be in (0, 1)");
+        }
+        this.radius = ((Cylinder) problem.domain()).radius();
+        this.k = problem.material().conductivity();
+        this.rhoC = problem.material().volumetricHeatCapacity();
+        this.alpha = problem.material().diffusivity();
+        this.tolerance = tolerance;
+        this.steady = problem.steady();
+        this.horizon = steady ? Double.POSITIVE_INFINITY : timeHorizon;
+        if (!steady && !(timeHorizon >= 0 && timeHorizon < Double.POSITIVE_INFINITY)) {
+            throw new IllegalArgumentException("time horizon " + timeHorizon + " must be finite and >= 0");
+        }
+        this.initial = problem.initial();
+        Expression source = problem.source();
+        BoundaryCondition surface = problem.condition(Side.SURFACE);
+        for (Expression e : new Expression[] {source, surface.data()}) {
+            if (e.variables().contains("t") && !e.isIndependentOf("t")) {
+                throw new OracleException(Reason.UNSUPPORTED, "oracle: the cylinder's source and surface data must be"
+                    + " constant in time in this version (" + e.source() + " depends on t); the initial temperature"
+                    + " may be anything");
+            }
+        }
+        double data = valueOf(surface.data(), radius);
+        Expression q = source;
+        double sourceIntegral = integrate(r -> valueOf(q, r) * r);
+        if (surface instanceof BoundaryCondition.Dirichlet) {
+            biot = Double.POSITIVE_INFINITY;
+            flux = false;
+            drift = 0;
+        } else if (surface instanceof BoundaryCondition.Robin rob) {
+            biot = rob.heatTransferCoefficient() * radius / k;
+            flux = false;
+            drift = 0;
+        } else {
+            biot = 0;
+            flux = true;
+            drift = (2 * data / radius + 2 * sourceIntegral / (radius * radius)) / rhoC;
+            if (steady) {
+                throw new OracleException(Reason.UNSUPPORTED, "oracle: a steady cylinder with a flux surface has no"
+                    + " unique steady state (u is fixed only up to a constant, and only when the net heat input is"
+                    + " zero); give the surface a temperature or convection, or solve the transient");
+            }
+        }
+        // J(r) = r int_0^1 s Qt(r s) ds, Qt = Q - rho c A
+        GaussLegendre g = GaussLegendre.of(40);
+        java.util.function.DoubleUnaryOperator jExact = r -> {
+            double sum = 0;
+            for (int i = 0; i < g.nodes.length; i++) {
+                double s = 0.5 * (g.nodes[i] + 1);
+                sum += 0.5 * g.weights[i] * s * (valueOf(q, r * s) - rhoC * drift);
+            }
+            return r * sum;
+        };
+        double[] c = null;
+        for (int n = 17; n <= 1025; n = 2 * n - 1) {
+            c = Chebyshev.interpolate(jExact, 0, radius, n);
+            double tailMax = 0;
+            double max = 0;
+            for (int i = 0; i < n; i++) {
+                max = Math.max(max, Math.abs(c[i]));
+                if (i >= n - 4) {
+                    tailMax = Math.max(tailMax, Math.abs(c[i]));
+                }
+            }
+            if (tailMax <= 1e-15 * Math.max(max, Double.MIN_NORMAL) || max == 0) {
+                break;
+            }
+            if (n == 1025) {
+                throw new OracleException(Reason.DATA_NOT_RESOLVED, "oracle: the cylinder's source is too rough for a"
+                    + " Chebyshev series of degree 1024 in r");
+            }
+        }
+        j = c;
+        jIntegral = Chebyshev.antiderivative(c, 0, radius);
+        double j0 = Chebyshev.value(jIntegral, -1);
+        jIntegral[0] -= j0;
+        SplittableRandom random = new SplittableRandom(20261201L);
+        double err = 0;
+        for (int i = 0; i < 64; i++) {
+            double r = random.nextDouble() * radius;
+            err = Math.max(err, Math.abs(jExact.applyAsDouble(r) - Chebyshev.value(j, Chebyshev.reference(r, 0, radius))));
+        }
+        double jScale = Chebyshev.absSum(j);
+        this.gradientError = (10 * err + 8 * EPS * jScale) / k;
+        this.steadyError = gradientError * radius;
+        double jR = Chebyshev.value(j, 1);
+        if (surface instanceof BoundaryCondition.Dirichlet) {
+            surfaceValue = data;
+        } else if (surface instanceof BoundaryCondition.Robin rob) {
+            surfaceValue = data + jR / rob.heatTransferCoefficient();
+        } else {
+            surfaceValue = 0;
+        }
+        double u = Math.abs(data) * (flux ? radius / k : 1);
+        u = Math.max(u, Math.abs(sourceIntegral) * 2 / k);
+        if (!steady) {
+            for (int i = 0; i <= 32; i++) {
+                u = Math.max(u, Math.abs(valueOf(initial, radius * i / 32)));
+            }
+            u = Math.max(u, Math.abs(drift) * horizon);
+        }
+        for (int i = 0; i <= 32; i++) {
+            u = Math.max(u, Math.abs(steadyValue(radius * i / 32)));
+        }
+        scale = u > 0 ? u : 1;
+    }
+
+    private static double valueOf(Expression e, double r) {
+        double[] args = new double[e.variables().size()];
+        int at = e.variables().indexOf("r");
+        if (at >= 0) {
+            args[at] = r;
+        }
+        double v = e.value(args);
+        if (!Double.isFinite(v)) {
+            throw new OracleException(Reason.DATA_NOT_FINITE, "oracle: " + e.source() + " is " + v + " at r = " + r);
+        }
+        return v;
+    }
+
+    private double integrate(java.util.function.DoubleUnaryOperator f) {
+        GaussLegendre g = GaussLegendre.of(64);
+        double sum = 0;
+        for (int i = 0; i < g.nodes.length; i++) {
+            sum += 0.5 * radius * g.weights[i] * f.applyAsDouble(0.5 * radius * (g.nodes[i] + 1));
+        }
+        return sum;
+    }
+
+    /** P(r) = P(R) + (K(R) - K(r))/k. */
+    private double steadyValue(double r) {
+        double s = Chebyshev.reference(r, 0, radius);
+        return surfaceValue + (Chebyshev.value(jIntegral, 1) - Chebyshev.value(jIntegral, s)) / k;
+    }
+
+    @Override
+    public int dimension() {
+        return 1;
+    }
+
+    @Override
+    public double scale() {
+        return scale;
+    }
+
+    @Override
+    public double length() {
+        return radius;
+    }
+
+    @Override
+    public double horizon() {
+        return horizon;
+    }
+
+    /** Makes modes 0..m-1 and their coefficients available (the zero mode first for a flux surface). */
+    private synchronized void ensure(int m) {
+        if (m <= coef.length) {
+            return;
+        }
+        int size = Math.min(CAP, Math.max(m, Math.max(16, coef.length * 3 / 2)));
+        double[] b = new double[size];
+        double[] nn = new double[size];
+        for (int i = 0; i < size; i++) {
+            if (flux && i == 0) {
+                b[i] = 0;
+                nn[i] = radius * radius / 2;
+            } else {
+                double z = RadialModes.root(RadialModes.Shape.CYLINDER, flux ? i : i + 1, biot);
+                b[i] = z / radius;
+                nn[i] = RadialModes.normSquared(RadialModes.Shape.CYLINDER, radius, b[i]);
+            }
+        }
+        double[][] result = new double[2][];
+        double normF = 0;
+        for (int pass = 0; pass < 2; pass++) {
+            int nq = (int) Math.ceil(1.6 * size + 40);
+            if (pass == 1) {
+                nq += nq / 4 + 8;
+            }
+            GaussLegendre g = GaussLegendre.of(nq);
+            double[] out = new double[size];
+            double sum2 = 0;
+            for (int q = 0; q < nq; q++) {
+                double r = 0.5 * radius * (g.nodes[q] + 1);
+                double w = 0.5 * radius * g.weights[q] * r;
+                double f = valueOf(initial, r) - steadyValue(r);
+                sum2 += w * f * f;
+                for (int i = 0; i < size; i++) {
+                    out[i] += w * f * Bessel.j0(b[i] * r);
+                }
+            }
+            for (int i = 0; i < size; i++) {
+                out[i] /= nn[i];
+            }
+            result[pass] = out;
+            if (pass == 0) {
+                normF = Math.sqrt(sum2) + steadyError * radius;
+            }
+        }
+        double diff = 0;
+        for (int i = 0; i < size; i++) {
+            diff = Math.max(diff, Math.abs(result[0][i] - result[1][i]));
+        }
+        coefError = 10 * diff + steadyError;
+        beta = b;
+        norm = nn;
+        coef = result[0];
+        // |c_i| <= ||f|| / ||J0(beta_i r)|| <= ||f|| sqrt(2 pi z_i)/R with z_i <= (i + 1) pi: <= C (i + 1)
+        tailCoefficient = normF * Math.PI * Math.sqrt(2) / radius;
+    }
+
+    @Override
+    public Slice at(double t) {
+        if (steady) {
+            return new CylinderSlice(Double.POSITIVE_INFINITY);
+        }
+        if (!(t >= 0 && t <= horizon * (1 + 1e-12))) {
+            throw new OracleException(Reason.OUTSIDE_TIME_RANGE, "oracle: t = " + t + " s is outside [0, " + horizon
+                + "] s, the range the oracle was prepared for");
+        }
+        return new CylinderSlice(t);
+    }
+
+    private final class CylinderSlice implements Slice {
+        private final double t;
+        private final int m;
+        private final double[] weighted;
+        private final double[] b;
+        private final double bound;
+        private final double gradientBound;
+
+        CylinderSlice(double t) {
+            this.t = t;
+            if (t == 0 || t == Double.POSITIVE_INFINITY) {
+                m = 0;
+                weighted = new double[0];
+                b = new double[0];
+                bound = steadyError + 4 * EPS * scale;
+                gradientBound = gradientError;
+                return;
+            }
+            double budget = tolerance * scale;
+            double a = alpha * t * Math.PI * Math.PI / (radius * radius);
+            if (a * CAP * CAP < 1) {
+                throw new OracleException(Reason.TOO_MANY_MODES, "oracle: at t = " + t + " s the cylinder's series needs"
+                    + " more than " + CAP + " modes (alpha t/R^2 = " + alpha * t / (radius * radius) + ")");
+            }
+            int size = 16;
+            int mm;
+            double tail;
+            double gTail;
+            while (true) {
+                ensure(size);
+                double c = tailCoefficient;
+                // mode i (0-based) has beta_i >= i pi/R and |c_i| <= c (i + 1), and |d/dr| adds beta_i <= (i + 1) pi/R
+                mm = 1;
+                while (true) {
+                    tail = c * TensorSolver.gaussTail(a, mm, 1);
+                    gTail = c * Math.PI / radius * TensorSolver.gaussTail(a, mm, 2);
+                    if ((tail <= budget / 4 && gTail <= budget / (4 * radius)) || mm >= coef.length) {
+                        break;
+                    }
+                    mm++;
+                }
+                if (tail <= budget / 4 && gTail <= budget / (4 * radius)) {
+                    break;
+                }
+                if (coef.length >= CAP) {
+                    throw new OracleException(Reason.TOO_MANY_MODES, "oracle: at t = " + t + " s the cylinder's series"
+                        + " needs more than " + CAP + " modes");
+                }
+                size = coef.length * 2;
+            }
+            m = mm;
+            weighted = new double[m];
+            b = new double[m];
+            double decaySum = 0;
+            double maxBeta = 0;
+            for (int i = 0; i < m; i++) {
+                double e = Math.exp(-alpha * beta[i] * beta[i] * t);
+                weighted[i] = coef[i] * e;
+                b[i] = beta[i];
+                decaySum += e;
+                maxBeta = Math.max(maxBeta, beta[i]);
+            }
+            bound = steadyError + tail + coefError * decaySum;
+            gradientBound = gradientError + gTail + coefError * decaySum * maxBeta;
+        }
+
+        @Override
+        public int modes() {
+            return m;
+        }
+
+        private double radiusOf(double[] p, int o) {
+            double r = p[o];
+            if (!(r >= 0 && r <= radius)) {
+                throw new OracleException(Reason.OUTSIDE_DOMAIN, "oracle: r = " + r + " m is outside [0, " + radius
+                    + "] m");
+            }
+            return r;
+        }
+
+        @Override
+        public Evaluation temperature(double[] p, int o) {
+            double r = radiusOf(p, o);
+            if (t == 0) {
+                double g = valueOf(initial, r);
+                return new Evaluation(g, 4 * EPS * Math.max(Math.abs(g), 1e-3 * scale));
+            }
+            double value = (steady ? 0 : drift * t) + steadyValue(r);
+            double magnitude = Math.abs(value);
+            for (int i = 0; i < m; i++) {
+                double term = weighted[i] * Bessel.j0(b[i] * r);
+                value += term;
+                magnitude += Math.abs(term);
+            }
+            double total = bound + 16 * EPS * magnitude + 2e-15 * Math.abs(weightedSum());
+            double budget = tolerance * scale;
+            if (!(total <= budget)) {
+                throw new OracleException(Reason.NOT_CERTIFIED, "oracle: u at r = " + r + " m, t = " + t + " s has bound "
+                    + total + " > " + budget + "; loosen the tolerance");
+            }
+            return new Evaluation(value, total);
+        }
+
+        private double weightedSum() {
+            double s = 0;
+            for (double w : weighted) {
+                s += Math.abs(w);
+            }
+            return s;
+        }
+
+        @Override
+        public double gradient(double[] p, int o, double[] out, int oo) {
+            double r = radiusOf(p, o);
+            if (t == 0) {
+                throw new OracleException(Reason.UNSUPPORTED, "oracle: the gradient at t = 0 is that of the initial"
+                    + " temperature; ask for t > 0");
+            }
+            double s = Chebyshev.reference(r, 0, radius);
+            double g = -Chebyshev.value(j, s) / k;
+            double magnitude = Math.abs(g);
+            for (int i = 0; i < m; i++) {
+                double term = -weighted[i] * b[i] * Bessel.j1(b[i] * r);
+                g += term;
+                magnitude += Math.abs(term);
+            }
+            double total = gradientBound + 16 * EPS * magnitude + 2e-15 * magnitude;
+            double limit = tolerance * scale / radius;
+            if (!(total <= limit)) {
+                throw new OracleException(Reason.NOT_CERTIFIED, "oracle: du/dr at r = " + r + " m, t = " + t + " s has"
+                    + " bound " + total + " > " + limit);
+            }
+            out[oo] = g;
+            return total;
+        }
+    }
+}

@@ -1,0 +1,40 @@
+package eigencheck.oracle.series;
+
+import eigencheck.oracle.Evaluation;
+
+/**
+ * A prepared series for a body in one to three coordinates (rectangle, box, cylinder): the state at
+ * one time is a {@link Slice}, which evaluates many points. Implementations are immutable to callers
+ * and thread-safe.
+ */
+public interface SpatialSolver {
+    /** Number of coordinates of a point. */
+    int dimension();
+
+    /** Temperature scale U the tolerance is relative to. */
+    double scale();
+
+    /** Characteristic length L: gradients are certified to tolerance * U / L. */
+    double length();
+
+    /** Time horizon prepared for (+infinity for a steady problem). */
+    double horizon();
+
+    /** The state at time t. @throws eigencheck.oracle.OracleException if t is outside the horizon */
+    Slice at(double t);
+
+    /** Everything that depends on t alone. */
+    interface Slice {
+        /** Modes summed by the time-dependent part at this time (0 for a steady problem). */
+        int modes();
+
+        /** u at the point {@code p[offset .. offset + dimension)}, with its bound. */
+        Evaluation temperature(double[] p, int offset);
+
+        /**
+         * The gradient of u at the point into {@code out[outOffset ..]}; returns the bound on each
+         * component.
+         */
+        double gradient(double[] p, int offset, double[] out, int outOffset);
+    }
+}

@@ -1,0 +1,1284 @@
+package eigencheck.oracle.series;
+
+import eigencheck.oracle.Evaluation;
+import eigencheck.oracle.Oracle;
+import eigencheck.oracle.OracleException;
+import eigencheck.oracle.OracleException.Reason;
+import eigencheck.oracle.expr.Expression;
+import eigencheck.oracle.problem.BoundaryCondition;
+import eigencheck.oracle.problem.Material;
+import eigencheck.oracle.problem.Problem;
+import eigencheck.oracle.problem.Side;
+import eigencheck.oracle.problem.Slab;
+import java.util.ArrayList;
+import java.util.EnumMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * The rectangle and the box, by superposition: u = P + sum over faces U_f + V.
+ * <ul>
+ * <li>P(x_a): the source's part, for a source that varies along one axis a at most, the steady slab
+ * solution of -k P'' = Q with the homogeneous conditions of the two faces normal to a (the certified
+ * slab oracle). It satisfies those faces exactly and leaves B_f(P) on the others.</li>
+ * <li>U_f, one per face f with data (B-form: Dirichlet u, Neumann q = k du/dn, Robin h u_amb, less
+ * B_f(P)): the elliptic series \(\sum_m G_m \prod X_m(x_\parallel)\, a_m y_m(s)\) with the modes of
+ * the tangential axes, s the distance from the face and
+ * \(y_m(s) = e^{-\kappa s} + \rho\, e^{-\kappa(2D-s)}\), \(\kappa^2 = \sum \mu^2\), \(\rho\) from the
+ * opposite face (-1 Dirichlet, +1 Neumann, \((k\kappa - h)/(k\kappa + h)\) Robin; linear when
+ * \(\kappa = 0\)), and \(a_m = 1/B_f(y_m)\). Each face's series converges exponentially at distance s
+ * from it, whatever its data do at the edges: the corner where two sides' data disagree costs modes
+ * only near that face.</li>
+ * <li>V: the decaying transient, \(\sum_J c_J e^{-\alpha \lambda_J t} \prod X_{j_i}(x_i)\) with
+ * \(\lambda_J = \sum \mu_{j_i}^2\) and \(c_J = g_J - U_J\): the initial data's projection (tensor
+ * Gauss-Legendre) less that of the steady part, which is exact: \(\int_0^D y\,Z = [y(0) Z'(0) -
+ * y'(0) Z(0)]/(\kappa^2 + \nu^2)\) by Green's identity, both satisfying the opposite face's
+ * condition.</li>
+ * </ul>
+ *
+ * <p>Bounds: every truncation is bounded rigorously from \(|G_m| \le \|G\|/\|X_m\|\) and
+ * \(|c_J| \le (\|g\| + \|U\|)/\|X_J\|\) (Cauchy-Schwarz), \(|X| \le 1\), \(\mu_j \ge j\pi/L\), and
+ * geometric or Gaussian sums; the projections' quadrature error is measured against a rule 25 % finer
+ * (times 10); rounding is 16 ulps of the sum of magnitudes. This version takes source and face data
+ * constant in time, a source varying along one axis at most, and not every face insulated or
+ * flux-driven; it refuses the rest (UNSUPPORTED), and points nearer to a face with data than its series
+ * can reach (TOO_MANY_MODES), except on Dirichlet faces, where u is the data.
+ */
+public final class TensorSolver implements SpatialSolver {
+    private static final double EPS = Math.ulp(1.0);
+    private static final int DIRICHLET = 0;
+    private static final int NEUMANN = 1;
+    private static final int ROBIN = 2;
+    private static final Side[][] SIDES = {{Side.XMIN, Side.XMAX}, {Side.YMIN, Side.YMAX}, {Side.ZMIN, Side.ZMAX}};
+    private static final String[] NAMES = {"x", "y", "z"};
+
+    private final int d;
+    private final double[] len;
+    private final double k;
+    private final double alpha;
+    private final double tolerance;
+    private final double horizon;
+    private final boolean steady;
+    private final double scale;
+    private final double lengthScale;
+    private final AxisModes[] axes;
+    private final int[][] type = new int[3][2];
+    private final double[][] h = new double[3][2];
+    private final Expression[][] data = new Expression[3][2];
+    private final int sourceAxis;
+    private final Oracle sourceOracle;
+    private final List<Face> faces = new ArrayList<>();
+    private final Expression initial;
+    private final int transientCap;
+    private final double timeVariation;
+    private Modal modal;
+
+    public TensorSolver(Problem problem, double timeHorizon, double tolerance) {
+        if (!(tolerance > 0 && tolerance < 1)) {
+            throw new IllegalArgumentException("tolerance " + tolerance + " must be in (0, 1)");
+        }
+        this.len = problem.domain().lengths();
+        this.d = len.length;
+        this.tolerance = tolerance;
+        this.steady = problem.steady();
+        this.horizon = steady ? Double.POSITIVE_INFINITY : timeHorizon;
+        if (!steady && !(timeHorizon >= 0 && timeHorizon < Double.POSITIVE_INFINITY)) {
+            throw new IllegalArgumentException("time horizon " + timeHorizon + " must be finite and >= 0");
+        }
+        Material material = problem.material();
+        this.k = material.conductivity();
+        this.alpha = material.diffusivity();
+        this.lengthScale = problem.domain().characteristicLength();
+        this.transientCap = d == 2 ? 1024 : 64;
+        boolean allFlux = true;
+        double variation = 0;
+        axes = new AxisModes[d];
+        for (int i = 0; i < d; i++) {
+            double[] hk = new double[2];
+            for (int s = 0; s < 2; s++) {
+                BoundaryCondition c = problem.condition(SIDES[i][s]);
+                double v = requireConstantInTime(c.data(), "boundary." + SIDES[i][s].key(), timeHorizon);
+                variation += 2 * v * (c instanceof BoundaryCondition.Neumann ? lengthScale / k : 1);
+                data[i][s] = c.data();
+                if (c instanceof BoundaryCondition.Dirichlet) {
+                    type[i][s] = DIRICHLET;
+                    hk[s] = Double.POSITIVE_INFINITY;
+                    allFlux = false;
+                } else if (c instanceof BoundaryCondition.Neumann) {
+                    type[i][s] = NEUMANN;
+                } else {
+                    type[i][s] = ROBIN;
+                    h[i][s] = ((BoundaryCondition.Robin) c).heatTransferCoefficient();
+                    hk[s] = h[i][s] / k;
+                    allFlux = false;
+                }
+            }
+            axes[i] = new AxisModes(len[i], hk[0], hk[1]);
+        }
+        if (allFlux) {
+            throw new OracleException(Reason.UNSUPPORTED, "oracle: every face is insulated or flux-driven; the mean"
+                + " then drifts with the net heat input and the steady state is fixed only up to a constant, which this"
+                + " version does not solve in 2D and 3D; give at least one face a temperature or convection");
+        }
+        variation += 2 * requireConstantInTime(problem.source(), "source", timeHorizon) * lengthScale * lengthScale / k;
+        Expression q = problem.source();
+        int along = -1;
+        for (int i = 0; i < d; i++) {
+            double change = variationAlong(q, i);
+            variation += 2 * (Double.isFinite(change) ? change : 0) * lengthScale * lengthScale / k;
+            if (change == Double.POSITIVE_INFINITY) {
+                if (along >= 0) {
+                    throw new OracleException(Reason.UNSUPPORTED, "source: varies along " + NAMES[along] + " and "
+                        + NAMES[i] + "; this version solves rectangles and boxes whose source varies along one axis at"
+                        + " most (for a general source use a manufactured solution)");
+                }
+                along = i;
+            }
+        }
+        boolean zeroSource = q.isConstant() && q.value(new double[q.variables().size()]) == 0;
+        if (!zeroSource && along < 0) {
+            for (int i = 0; i < d && along < 0; i++) {
+                if (!axes[i].zero) {
+                    along = i;
+                }
+            }
+        }
+        if (!zeroSource && axes[along].zero) {
+            throw new OracleException(Reason.UNSUPPORTED, "source: varies along " + NAMES[along] + ", whose two faces"
+                + " are both insulated or flux-driven; this version needs a temperature or convection on one of them");
+        }
+        this.timeVariation = variation;
+        this.sourceAxis = zeroSource ? -1 : along;
+        this.sourceOracle = zeroSource ? null : sourceSlab(problem, along, tolerance / 8);
+        this.initial = problem.initial();
+        this.scale = scaleOf(problem);
+        for (int i = 0; i < d; i++) {
+            for (int s = 0; s < 2; s++) {
+                Face f = new Face(i, s);
+                if (f.present) {
+                    faces.add(f);
+                }
+            }
+        }
+    }
+
+    /**
+     * Refuses data that vary in time. Data that name t but do not change with it (a manufactured face
+     * where the time factor multiplies a mode that vanishes there) are accepted when 9^d samples at
+     * five times differ from t = 0 by less than 1e-12 of their size; the variation found, doubled, is
+     * added to every bound (in temperature units). Returns it.
+     */
+    private double requireConstantInTime(Expression e, String field, double timeHorizon) {
+        if (!e.variables().contains("t") || e.isIndependentOf("t")) {
+            return 0;
+        }
+        double variation = 0;
+        boolean constant = timeHorizon > 0 && timeHorizon < Double.POSITIVE_INFINITY;
+        int n = 9;
+        int count = (int) Math.pow(n, d);
+        double[] p = new double[d];
+        for (int c = 0; c < count && constant; c++) {
+            int rest = c;
+            for (int i = 0; i < d; i++) {
+                p[i] = len[i] * (rest % n) / (n - 1.0);
+                rest /= n;
+            }
+            double v0 = valueAt(e, p, 0);
+            for (int j = 1; j <= 4 && constant; j++) {
+                double v = valueAt(e, p, timeHorizon * j / 4);
+                variation = Math.max(variation, Math.abs(v - v0));
+                constant = Math.abs(v - v0) <= 1e-12 * Math.max(1, Math.abs(v0));
+            }
+        }
+        if (!constant) {
+            throw new OracleException(Reason.UNSUPPORTED, field + ": depends on t; this version solves rectangles and"
+                + " boxes whose source and face data are constant in time (the initial temperature may be anything);"
+                + " for time-dependent data use a manufactured solution");
+        }
+        return variation;
+    }
+
+    /**
+     * The largest change of the expression along the axis over 81 sampled lines (0 if it does not name
+     * the coordinate): a source that names a coordinate but does not change along it to 1e-12 of its size
+     * (a manufactured source whose terms cancel) counts as not varying, and the change is bounded.
+     */
+    private double variationAlong(Expression e, int axis) {
+        if (e.isIndependentOf(NAMES[axis])) {
+            return 0;
+        }
+        double[] p = new double[d];
+        double change = 0;
+        double size = 0;
+        for (int c = 0; c < 81; c++) {
+            for (int i = 0; i < d; i++) {
+                p[i] = len[i] * (((c * 7 + i * 3) % 9) / 8.0);
+            }
+            p[axis] = 0;
+            double v0 = valueAt(e, p);
+            size = Math.max(size, Math.abs(v0));
+            for (int j = 1; j <= 8; j++) {
+                p[axis] = len[axis] * j / 8;
+                change = Math.max(change, Math.abs(valueAt(e, p) - v0));
+            }
+        }
+        return change <= 1e-12 * Math.max(1, size) ? change : Double.POSITIVE_INFINITY;
+    }
+
+    /** The steady slab problem of P along {@code axis}, with that axis's homogeneous face conditions. */
+    private Oracle sourceSlab(Problem problem, int axis, double tol) {
+        Map<Side, BoundaryCondition> bc = new EnumMap<>(Side.class);
+        Side[] slabSides = {Side.XMIN, Side.XMAX};
+        for (int s = 0; s < 2; s++) {
+            Expression zero = Expression.parse("0", "t");
+            bc.put(slabSides[s], switch (type[axis][s]) {
+                case DIRICHLET -> new BoundaryCondition.Dirichlet(zero);
+                case NEUMANN -> new BoundaryCondition.Neumann(zero);
+                default -> new BoundaryCondition.Robin(h[axis][s], zero);
+            });
+        }
+        Expression q = problem.source();
+        for (int i = 0; i < d; i++) {
+            if (i != axis && q.variables().contains(NAMES[i])) {
+                q = q.substitute(NAMES[i], 0);
+            }
+        }
+        if (q.variables().contains("t")) {
+            q = q.substitute("t", 0); // constant in t (checked)
+        }
+        q = q.over(NAMES[axis], "t");
+        if (axis != 0) {
+            q = q.renamed(NAMES[axis], "x");
+        }
+        Problem slab = new Problem(new Slab(len[axis]), problem.material(), Expression.parse("0", "x"), q, bc, true);
+        return Oracle.prepare(slab, 0, tol);
+    }
+
+    @Override
+    public int dimension() {
+        return d;
+    }
+
+    @Override
+    public double scale() {
+        return scale;
+    }
+
+    @Override
+    public double length() {
+        return lengthScale;
+    }
+
+    @Override
+    public double horizon() {
+        return horizon;
+    }
+
+    /** Faces whose data need an elliptic series (their data, less the source part's, do not vanish). */
+    public int dataFaces() {
+        return faces.size();
+    }
+
+    // ---------------------------------------------------------------- data and scale
+
+    /** Evaluates an expression of (x, y, z, t) at a point and t = 0, by its own variable order. */
+    private double valueAt(Expression e, double[] point) {
+        return valueAt(e, point, 0);
+    }
+
+    private double valueAt(Expression e, double[] point, double t) {
+        List<String> vars = e.variables();
+        double[] args = new double[vars.size()];
+        for (int v = 0; v < args.length; v++) {
+            String name = vars.get(v);
+            for (int i = 0; i < d; i++) {
+                if (NAMES[i].equals(name)) {
+                    args[v] = point[i];
+                }
+            }
+            if ("t".equals(name)) {
+                args[v] = t;
+            }
+        }
+        double value = e.value(args);
+        if (!Double.isFinite(value)) {
+            throw new OracleException(Reason.DATA_NOT_FINITE, "oracle: " + e.source() + " is " + value + " at "
+                + java.util.Arrays.toString(point));
+        }
+        return value;
+    }
+
+    /** The face condition's data in B-form (u, q or h u_amb) at a point on it. */
+    private double faceData(int axis, int side, double[] point) {
+        double g = valueAt(data[axis][side], point);
+        return type[axis][side] == ROBIN ? h[axis][side] * g : g;
+    }
+
+    private double scaleOf(Problem problem) {
+        double u = 0;
+        int n = 9;
+        int count = (int) Math.pow(n, d);
+        double[] p = new double[d];
+        for (int c = 0; c < count; c++) {
+            int rest = c;
+            for (int i = 0; i < d; i++) {
+                p[i] = len[i] * (rest % n) / (n - 1.0);
+                rest /= n;
+            }
+            if (!steady) {
+                u = Math.max(u, Math.abs(valueAt(initial, p)));
+            }
+            u = Math.max(u, Math.abs(valueAt(problem.source(), p)) * lengthScale * lengthScale / k);
+            for (int i = 0; i < d; i++) {
+                for (int s = 0; s < 2; s++) {
+                    double[] f = p.clone();
+                    f[i] = s == 0 ? 0 : len[i];
+                    double g = Math.abs(valueAt(data[i][s], f));
+                    u = Math.max(u, type[i][s] == NEUMANN ? g * lengthScale / k : g);
+                }
+            }
+        }
+        return u > 0 ? u : 1;
+    }
+
+    // ---------------------------------------------------------------- the faces' elliptic series
+
+    /** Gauss-Legendre nodes and weights on [0, L]. */
+    private static double[][] rule(int n, double length) {
+        GaussLegendre g = GaussLegendre.of(n);
+        double[] x = new double[n];
+        double[] w = new double[n];
+        for (int q = 0; q < n; q++) {
+            x[q] = 0.5 * length * (g.nodes[q] + 1);
+            w[q] = 0.5 * length * g.weights[q];
+        }
+        return new double[][] {x, w};
+    }
+
+    /** Nodes needed to project modes 0..m-1 to machine precision (about pi/2 per mode, plus margin). */
+    private static int nodesFor(int m) {
+        return (int) Math.ceil(1.6 * m + 40);
+    }
+
+    /**
+     * Contracts axis {@code a} of a tensor of shape {@code shape} (row-major, axis 0 slowest) with the
+     * weighted modes of that axis divided by their norms: shape[a] = nodes becomes m.
+     */
+    private static double[] contract(double[] tensor, int[] shape, int a, double[] x, double[] w, AxisModes modes,
+                                     int m) {
+        int outer = 1;
+        for (int i = 0; i < a; i++) {
+            outer *= shape[i];
+        }
+        int inner = 1;
+        for (int i = a + 1; i < shape.length; i++) {
+            inner *= shape[i];
+        }
+        int n = shape[a];
+        modes.ensure(m);
+        double[][] basis = new double[m][n];
+        for (int j = 0; j < m; j++) {
+            double norm = modes.norm[j];
+            for (int q = 0; q < n; q++) {
+                basis[j][q] = w[q] * Math.sin(modes.mu[j] * x[q] + modes.phase[j]) / norm;
+            }
+        }
+        double[] out = new double[outer * m * inner];
+        for (int o = 0; o < outer; o++) {
+            for (int j = 0; j < m; j++) {
+                double[] b = basis[j];
+                int target = (o * m + j) * inner;
+                for (int q = 0; q < n; q++) {
+                    double bq = b[q];
+                    int source = (o * n + q) * inner;
+                    for (int r = 0; r < inner; r++) {
+                        out[target + r] += bq * tensor[source + r];
+                    }
+                }
+            }
+        }
+        shape[a] = m;
+        return out;
+    }
+
+    /** Coefficients of a function of the given axes, sampled on tensor Gauss rules, over the modes. */
+    private interface Sampler {
+        double at(double[] point);
+    }
+
+    /**
+     * Projects f onto modes 0..m[i]-1 of the listed axes (other coordinates fixed by {@code base}),
+     * with a second, 25 % finer rule for the error: returns {coefficients, {error, L2 norm}}.
+     */
+    private double[][] project(Sampler f, int[] axisList, int[] m, double[] base) {
+        double[][] result = null;
+        for (int pass = 0; pass < 2; pass++) {
+            int dims = axisList.length;
+            int[] shape = new int[dims];
+            double[][][] rules = new double[dims][][];
+            int total = 1;
+            for (int i = 0; i < dims; i++) {
+                int n = nodesFor(m[i]);
+                if (pass == 1) {
+                    n += n / 4 + 8;
+                }
+                shape[i] = n;
+                rules[i] = rule(n, len[axisList[i]]);
+                total *= n;
+            }
+            double[] values = new double[total];
+            double normSquared = 0;
+            double[] point = base.clone();
+            for (int c = 0; c < total; c++) {
+                int rest = c;
+                double weight = 1;
+                for (int i = dims - 1; i >= 0; i--) {
+                    int q = rest % shape[i];
+                    rest /= shape[i];
+                    point[axisList[i]] = rules[i][0][q];
+                    weight *= rules[i][1][q];
+                }
+                double v = f.at(point);
+                values[c] = v;
+                normSquared += weight * v * v;
+            }
+            double[] t = values;
+            for (int i = 0; i < dims; i++) {
+                t = contract(t, shape, i, rules[i][0], rules[i][1], axes[axisList[i]], m[i]);
+            }
+            if (pass == 0) {
+                result = new double[][] {t, {0, Math.sqrt(normSquared)}};
+            } else {
+                double diff = 0;
+                double max = 0;
+                for (int c = 0; c < t.length; c++) {
+                    diff = Math.max(diff, Math.abs(t[c] - result[0][c]));
+                    max = Math.max(max, Math.abs(t[c]));
+                }
+                result[1][0] = 10 * diff + 4 * EPS * max;
+            }
+        }
+        return result;
+    }
+
+    /** One face's elliptic series. */
+    private final class Face {
+        final int axis;
+        final int side;
+        final int[] tangential;
+        final int[] cap;
+        final double depth;
+        boolean present;
+        double[] coef;
+        double[] kappa;
+        double[] amplitude; // a_m
+        double[] rho;
+        double[] beta; // kappa = 0: y = 1 + beta s
+        double error;
+        double norm;
+        double sup; // bound of 2 |a_m| |G_m| over all m
+        double profileNorm; // bound of ||a_m y_m|| over all m
+
+        Face(int axis, int side) {
+            this.axis = axis;
+            this.side = side;
+            this.depth = len[axis];
+            tangential = new int[d - 1];
+            for (int i = 0, j = 0; i < d; i++) {
+                if (i != axis) {
+                    tangential[j++] = i;
+                }
+            }
+            cap = new int[d - 1];
+            java.util.Arrays.fill(cap, d == 2 ? 2048 : 160);
+            double[] base = new double[d];
+            base[axis] = side == 0 ? 0 : len[axis];
+            double[][] p = project(point -> faceData(axis, side, point) - sourcePart(axis, side, point), tangential,
+                cap, base);
+            norm = p[1][1];
+            if (norm == 0) {
+                present = false;
+                return;
+            }
+            present = true;
+            coef = p[0];
+            error = p[1][0];
+            int count = coef.length;
+            kappa = new double[count];
+            amplitude = new double[count];
+            rho = new double[count];
+            beta = new double[count];
+            double normLower = 1;
+            for (int t : tangential) {
+                normLower *= axes[t].normLowerBound(cap[0]);
+            }
+            double aMax = 0;
+            double yMax = 0;
+            int far = 1 - side;
+            for (int c = 0; c < count; c++) {
+                int rest = c;
+                double k2 = 0;
+                for (int i = tangential.length - 1; i >= 0; i--) {
+                    int j = rest % cap[i];
+                    rest /= cap[i];
+                    double m = axes[tangential[i]].mu[j];
+                    k2 += m * m;
+                }
+                double kap = Math.sqrt(k2);
+                kappa[c] = kap;
+                double y0;
+                double dy0;
+                if (kap == 0) {
+                    beta[c] = switch (type[axis][far]) {
+                        case DIRICHLET -> -1 / depth;
+                        case NEUMANN -> 0;
+                        default -> -h[axis][far] / (k + h[axis][far] * depth);
+                    };
+                    y0 = 1;
+                    dy0 = beta[c];
+                } else {
+                    rho[c] = switch (type[axis][far]) {
+                        case DIRICHLET -> -1;
+                        case NEUMANN -> 1;
+                        default -> (k * kap - h[axis][far]) / (k * kap + h[axis][far]);
+                    };
+                    double e = Math.exp(-2 * kap * depth);
+                    y0 = 1 + rho[c] * e;
+                    dy0 = kap * (-1 + rho[c] * e);
+                }
+                double b = switch (type[axis][side]) {
+                    case DIRICHLET -> y0;
+                    case NEUMANN -> -k * dy0;
+                    default -> -k * dy0 + h[axis][side] * y0;
+                };
+                if (!(Math.abs(b) > 0)) {
+                    throw new OracleException(Reason.UNSUPPORTED, "oracle: face " + SIDES[axis][side].key()
+                        + " has no decaying profile for mode " + c + " (insulated on both sides of it)");
+                }
+                double a = 1 / b;
+                amplitude[c] = a;
+                aMax = Math.max(aMax, Math.abs(a));
+                double profile = kap == 0 ? Math.abs(a) * Math.sqrt(depth) : Math.abs(a) * Math.sqrt(Math.min(2 / kap,
+                    4 * depth));
+                yMax = Math.max(yMax, profile);
+            }
+            sup = 2 * aMax * norm / Math.sqrt(normLower);
+            profileNorm = yMax;
+        }
+
+        /** Distance of a point from this face. */
+        double distance(double[] p, int o) {
+            return side == 0 ? p[o + axis] : len[axis] - p[o + axis];
+        }
+
+        /**
+         * Adds this face's value (and gradient, if {@code grad} is not null) at the point; returns
+         * {value bound, gradient bound} in {@code bounds}.
+         */
+        double add(double[] p, int o, double budget, double[] grad, double[] bounds) {
+            double s = Math.max(0, distance(p, o));
+            int nt = tangential.length;
+            double[] r = new double[nt];
+            int[] m = new int[nt];
+            double gradientBudget = budget / lengthScale;
+            // region i (j_i >= m_i): kappa >= sum_l w_il j_l pi/L_l with sum_l w_il^2 <= 1 (Cauchy-Schwarz)
+            double[][] rr = new double[nt][nt];
+            for (int i = 0; i < nt; i++) {
+                for (int l = 0; l < nt; l++) {
+                    double w = nt == 1 ? 1 : (l == i ? 0.95 : 0.3122);
+                    rr[i][l] = Math.exp(-w * Math.PI * s / len[tangential[l]]);
+                }
+                r[i] = rr[i][i];
+            }
+            if (!(s > 0) || r[0] >= 1) {
+                throw tooClose(s);
+            }
+            for (int i = 0; i < nt; i++) {
+                double others = 1;
+                for (int l = 0; l < nt; l++) {
+                    if (l != i) {
+                        others /= 1 - rr[i][l];
+                    }
+                }
+                double target = budget * (1 - r[i]) / (nt * sup * others);
+                m[i] = Math.max(1, (int) Math.ceil(Math.log(target) / Math.log(r[i])));
+            }
+            this.regions = rr;
+            double tail = valueTail(r, m);
+            double gTail = grad == null ? 0 : gradientTail(r, m);
+            while (grad != null && gTail > gradientBudget) {
+                for (int i = 0; i < nt; i++) {
+                    m[i] += Math.max(1, m[i] / 8);
+                }
+                if (m[0] > cap[0] || (nt > 1 && m[1] > cap[1])) {
+                    break;
+                }
+                gTail = gradientTail(r, m);
+                tail = valueTail(r, m);
+            }
+            for (int i = 0; i < nt; i++) {
+                if (m[i] > cap[i]) {
+                    throw tooClose(s);
+                }
+            }
+            double value = 0;
+            double magnitude = 0;
+            double profileSum = 0;
+            double gradientProfile = 0;
+            double gradientMagnitude = 0;
+            double[] gsum = new double[d];
+            double dSign = side == 0 ? 1 : -1; // d/dx_axis = dSign d/ds
+            double[][] xs = new double[nt][];
+            double[][] dxs = new double[nt][];
+            for (int i = 0; i < nt; i++) {
+                AxisModes ax = axes[tangential[i]];
+                double x = p[o + tangential[i]];
+                xs[i] = new double[m[i]];
+                dxs[i] = new double[m[i]];
+                for (int j = 0; j < m[i]; j++) {
+                    double arg = ax.mu[j] * x + ax.phase[j];
+                    xs[i][j] = Math.sin(arg);
+                    dxs[i][j] = ax.mu[j] * Math.cos(arg);
+                }
+            }
+            int count = nt == 1 ? m[0] : m[0] * m[1];
+            for (int c = 0; c < count; c++) {
+                int j0 = nt == 1 ? c : c / m[1];
+                int j1 = nt == 1 ? 0 : c % m[1];
+                int index = nt == 1 ? j0 : j0 * cap[1] + j1;
+                double kap = kappa[index];
+                double y;
+                double dy;
+                if (kap == 0) {
+                    y = 1 + beta[index] * s;
+                    dy = beta[index];
+                } else {
+                    double e1 = Math.exp(-kap * s);
+                    double e2 = rho[index] == 0 ? 0 : rho[index] * Math.exp(-kap * (2 * depth - s));
+                    y = e1 + e2;
+                    dy = kap * (-e1 + e2);
+                }
+                double ga = coef[index] * amplitude[index];
+                double x0 = xs[0][j0];
+                double x1 = nt == 1 ? 1 : xs[1][j1];
+                double term = ga * x0 * x1 * y;
+                value += term;
+                magnitude += Math.abs(term);
+                profileSum += Math.abs(amplitude[index] * y);
+                if (grad != null) {
+                    double tangentialMu = axes[tangential[0]].mu[j0] + (nt > 1 ? axes[tangential[1]].mu[j1] : 0);
+                    double slope = Math.abs(dy) + Math.abs(y) * tangentialMu;
+                    gradientProfile += Math.abs(amplitude[index]) * slope;
+                    gradientMagnitude += Math.abs(ga) * slope;
+                    gsum[axis] += ga * x0 * x1 * dy * dSign;
+                    gsum[tangential[0]] += ga * dxs[0][j0] * x1 * y;
+                    if (nt > 1) {
+                        gsum[tangential[1]] += ga * x0 * dxs[1][j1] * y;
+                    }
+                }
+            }
+            if (grad != null) {
+                for (int i = 0; i < d; i++) {
+                    grad[i] += gsum[i];
+                }
+            }
+            bounds[0] = tail + error * profileSum + 16 * EPS * magnitude;
+            bounds[1] = gTail + error * gradientProfile + 16 * EPS * gradientMagnitude;
+            return value;
+        }
+
+        private double[][] regions;
+
+        private double valueTail(double[] r, int[] m) {
+            double[][] rr = regions;
+            double total = 0;
+            for (int i = 0; i < rr.length; i++) {
+                double product = 1;
+                for (int l = 0; l < rr.length; l++) {
+                    product *= (l == i ? Math.pow(rr[i][l], m[l]) : 1) / (1 - rr[i][l]);
+                }
+                total += product;
+            }
+            return sup * total;
+        }
+
+        /** Tail of sup * 2 sum_i (j_i + 1) pi/L_i r^j over the complement (|grad| <= kappa + sum mu). */
+        private double gradientTail(double[] r, int[] m) {
+            double[][] rr = regions;
+            int nt = rr.length;
+            double total = 0;
+            for (int cut = 0; cut < nt; cut++) {
+                // the part j_cut >= m_cut, all other j
+                for (int weighted = 0; weighted < nt; weighted++) {
+                    double product = Math.PI / len[tangential[weighted]];
+                    for (int i = 0; i < nt; i++) {
+                        int from = i == cut ? m[i] : 0;
+                        double q = rr[cut][i];
+                        product *= i == weighted ? weightedGeometric(q, from) : Math.pow(q, from) / (1 - q);
+                    }
+                    total += product;
+                }
+            }
+            return 2 * sup * total;
+        }
+
+        private OracleException tooClose(double s) {
+            return new OracleException(Reason.TOO_MANY_MODES, "oracle: the point is " + s + " m from face "
+                + SIDES[axis][side].key() + ", whose data (less the source part) do not vanish along its edges;"
+                + " that face's series would need more than " + cap[0] + " modes per direction there. Points this close"
+                + " to such a face are not certified in this version (on a Dirichlet face itself u is the data)");
+        }
+    }
+
+    /** sum_{j >= m} (j + 1) r^j = r^m ((m + 1)/(1 - r) + r/(1 - r)^2). */
+    private static double weightedGeometric(double r, int m) {
+        double q = 1 - r;
+        return Math.pow(r, m) * ((m + 1) / q + r / (q * q));
+    }
+
+    private double minLength() {
+        double m = len[0];
+        for (double l : len) {
+            m = Math.min(m, l);
+        }
+        return m;
+    }
+
+    /** B_f(P) on a face normal to an axis other than the source's: P (Dirichlet), 0 (Neumann), h P (Robin). */
+    private double sourcePart(int axis, int side, double[] point) {
+        if (sourceAxis < 0 || sourceAxis == axis || type[axis][side] == NEUMANN) {
+            return 0;
+        }
+        double p = sourceOracle.temperature(point[sourceAxis], 0).value();
+        return type[axis][side] == ROBIN ? h[axis][side] * p : p;
+    }
+
+    // ---------------------------------------------------------------- the transient
+
+    /** The transient's coefficients for modes 0..m[i]-1 per axis. */
+    private final class Modal {
+        final int[] m;
+        final double[] c;
+        final double error;
+        final double tailCoefficient;
+
+        Modal(int[] m) {
+            this.m = m;
+            double[][] g = project(point -> valueAt(initial, point), allAxes(), m, new double[d]);
+            c = g[0];
+            double err = g[1][0];
+            double uNorm = 0;
+            int count = c.length;
+            // the source part: P_j = Q_j / (k mu_j^2), times the projections of 1 on the other axes
+            if (sourceAxis >= 0) {
+                AxisModes a = axes[sourceAxis];
+                double[][] qa = projectSource(m[sourceAxis]);
+                double[][] ones = new double[d][];
+                for (int i = 0; i < d; i++) {
+                    axes[i].ensure(m[i]);
+                    ones[i] = new double[m[i]];
+                    for (int j = 0; j < m[i]; j++) {
+                        ones[i][j] = axes[i].integral(j) / axes[i].norm[j];
+                    }
+                }
+                double weightMax = 0;
+                int[] index = new int[d];
+                for (int cIndex = 0; cIndex < count; cIndex++) {
+                    unflatten(cIndex, m, index);
+                    double w = 1;
+                    for (int i = 0; i < d; i++) {
+                        if (i != sourceAxis) {
+                            w *= ones[i][index[i]];
+                        }
+                    }
+                    double mu = a.mu[index[sourceAxis]];
+                    double pj = qa[0][index[sourceAxis]] / (k * mu * mu);
+                    c[cIndex] -= pj * w;
+                    weightMax = Math.max(weightMax, Math.abs(w) / (k * mu * mu));
+                }
+                err += qa[1][0] * weightMax;
+                uNorm += qa[1][1];
+            }
+            for (Face f : faces) {
+                double weightMax = 0;
+                int[] index = new int[d];
+                AxisModes normal = axes[f.axis];
+                for (int cIndex = 0; cIndex < count; cIndex++) {
+                    unflatten(cIndex, m, index);
+                    int faceIndex = f.tangential.length == 1 ? index[f.tangential[0]]
+                        : index[f.tangential[0]] * f.cap[1] + index[f.tangential[1]];
+                    int p = index[f.axis];
+                    double nu = normal.mu[p];
+                    double z0;
+                    double dz0;
+                    if (f.side == 0) {
+                        z0 = Math.sin(normal.phase[p]);
+                        dz0 = nu * Math.cos(normal.phase[p]);
+                    } else {
+                        double arg = nu * normal.length + normal.phase[p];
+                        z0 = Math.sin(arg);
+                        dz0 = -nu * Math.cos(arg);
+                    }
+                    double kap = f.kappa[faceIndex];
+                    double y0;
+                    double dy0;
+                    if (kap == 0) {
+                        y0 = 1;
+                        dy0 = f.beta[faceIndex];
+                    } else {
+                        double e = f.rho[faceIndex] * Math.exp(-2 * kap * f.depth);
+                        y0 = 1 + e;
+                        dy0 = kap * (-1 + e);
+                    }
+                    double inner;
+                    double denominator = kap * kap + nu * nu;
+                    if (denominator == 0) {
+                        inner = f.depth; // both constant: cannot happen unless every face is insulated
+                    } else {
+                        inner = (y0 * dz0 - dy0 * z0) / denominator;
+                    }
+                    double w = f.amplitude[faceIndex] * inner / normal.norm[p];
+                    c[cIndex] -= f.coef[faceIndex] * w;
+                    weightMax = Math.max(weightMax, Math.abs(w));
+                }
+                err += f.error * weightMax;
+                uNorm += f.norm * f.profileNorm;
+            }
+            error = err;
+            double normLower = 1;
+            for (int i = 0; i < d; i++) {
+                normLower *= axes[i].normLowerBound(m[i]);
+            }
+            tailCoefficient = (g[1][1] + uNorm) / Math.sqrt(normLower);
+        }
+    }
+
+    private int[] allAxes() {
+        int[] a = new int[d];
+        for (int i = 0; i < d; i++) {
+            a[i] = i;
+        }
+        return a;
+    }
+
+    private static void unflatten(int c, int[] m, int[] index) {
+        for (int i = m.length - 1; i >= 0; i--) {
+            index[i] = c % m[i];
+            c /= m[i];
+        }
+    }
+
+    /** Q_j/(rho c ... ) projections of the source along its axis: {coefficients, {error, ||P|| in the body}}. */
+    private double[][] projectSource(int m) {
+        int a = sourceAxis;
+        Expression q = sourceOracle.problem().source();
+        double[][] p = project(point -> q.value(point[a], 0), new int[] {a}, new int[] {m}, new double[d]);
+        // ||P|| over the body: the slab values on a Gauss rule, times the other edges' lengths
+        double[][] r = rule(64, len[a]);
+        double sum = 0;
+        for (int i = 0; i < 64; i++) {
+            double v = Math.abs(sourceOracle.temperature(r[0][i], 0).value())
+                + sourceOracle.temperature(r[0][i], 0).bound();
+            sum += r[1][i] * v * v;
+        }
+        double others = 1;
+        for (int i = 0; i < d; i++) {
+            if (i != a) {
+                others *= len[i];
+            }
+        }
+        return new double[][] {p[0], {p[1][0], 1.01 * Math.sqrt(sum * others)}};
+    }
+
+    private synchronized Modal modal(int[] needed) {
+        Modal current = modal;
+        if (current != null) {
+            boolean enough = true;
+            for (int i = 0; i < d; i++) {
+                enough &= current.m[i] >= needed[i];
+            }
+            if (enough) {
+                return current;
+            }
+        }
+        int[] m = new int[d];
+        for (int i = 0; i < d; i++) {
+            int have = current == null ? 0 : current.m[i];
+            m[i] = Math.min(transientCap, Math.max(needed[i], Math.max(8, have * 3 / 2)));
+        }
+        modal = new Modal(m);
+        return modal;
+    }
+
+    // ---------------------------------------------------------------- slices
+
+    @Override
+    public Slice at(double t) {
+        if (steady) {
+            return new TensorSlice(Double.POSITIVE_INFINITY);
+        }
+        if (!(t >= 0 && t <= horizon * (1 + 1e-12))) {
+            throw new OracleException(Reason.OUTSIDE_TIME_RANGE, "oracle: t = " + t + " s is outside [0, " + horizon
+                + "] s, the range the oracle was prepared for");
+        }
+        return new TensorSlice(t);
+    }
+
+    /** The state at one time. */
+    private final class TensorSlice implements Slice {
+        private final double t;
+        private final int[] m;
+        private final double[] weighted; // c_J exp(-alpha lambda_J t)
+        private final double modalBound;
+        private final double modalGradientBound;
+        private final int modes;
+        private final double budget;
+
+        TensorSlice(double t) {
+            this.t = t;
+            this.budget = tolerance * scale;
+            if (t == Double.POSITIVE_INFINITY || t == 0) {
+                m = null;
+                weighted = null;
+                modalBound = 0;
+                modalGradientBound = 0;
+                modes = 0;
+                return;
+            }
+            double[] a = new double[d];
+            double[] sums = new double[d];
+            double[] weightedSums = new double[d];
+            for (int i = 0; i < d; i++) {
+                a[i] = alpha * t * Math.PI * Math.PI / (len[i] * len[i]);
+                sums[i] = gaussTail(a[i], 0, 0);
+                weightedSums[i] = Math.PI / len[i] * gaussTail(a[i], 0, 1);
+            }
+            // first pass with a rough coefficient bound to size the modes, then with the real one
+            int[] needed = new int[d];
+            Modal mod = null;
+            double tailC = 0;
+            for (int pass = 0; pass < 2; pass++) {
+                tailC = pass == 0 ? roughTailCoefficient() : mod.tailCoefficient;
+                for (int i = 0; i < d; i++) {
+                    double others = 1;
+                    for (int j = 0; j < d; j++) {
+                        if (j != i) {
+                            others *= sums[j];
+                        }
+                    }
+                    if (a[i] * transientCap * transientCap < 1) {
+                        throw new OracleException(Reason.TOO_MANY_MODES, "oracle: at t = " + t + " s the transient"
+                            + " needs more than " + transientCap + " modes along " + NAMES[i] + " (alpha t/L^2 = "
+                            + alpha * t / (len[i] * len[i]) + " is too small for this version)");
+                    }
+                    double logs = Math.log(Math.max(1.0001, tailC * 4 * d / budget));
+                    int mi = Math.max(1, (int) (0.7 * Math.sqrt(logs / a[i])));
+                    while (tailC * others * gaussTail(a[i], mi, 0) > budget / (4 * d)
+                        || tailC * gradientOthers(i, mi, a, sums, weightedSums) > budget / (4 * d * lengthScale)) {
+                        mi = mi < 16 ? mi + 1 : mi + mi / 8;
+                        if (mi > transientCap) {
+                            throw new OracleException(Reason.TOO_MANY_MODES, "oracle: at t = " + t + " s the"
+                                + " transient needs more than " + transientCap + " modes along " + NAMES[i]
+                                + " (alpha t/L^2 = " + alpha * t / (len[i] * len[i]) + " is too small for this version)");
+                        }
+                    }
+                    needed[i] = Math.max(needed[i], mi);
+                }
+                mod = modal(needed);
+            }
+            m = needed.clone();
+            int count = 1;
+            for (int i = 0; i < d; i++) {
+                count *= m[i];
+            }
+            modes = count;
+            weighted = new double[count];
+            double[][] decay = new double[d][];
+            for (int i = 0; i < d; i++) {
+                decay[i] = new double[m[i]];
+                for (int j = 0; j < m[i]; j++) {
+                    double mu = axes[i].mu[j];
+                    decay[i][j] = Math.exp(-alpha * mu * mu * t);
+                }
+            }
+            int[] index = new int[d];
+            double decaySum = 0;
+            for (int c = 0; c < count; c++) {
+                unflatten(c, m, index);
+                double e = 1;
+                int source = 0;
+                for (int i = 0; i < d; i++) {
+                    e *= decay[i][index[i]];
+                    source = source * mod.m[i] + index[i];
+                }
+                weighted[c] = mod.c[source] * e;
+                decaySum += e;
+            }
+            double tail = 0;
+            double gradientTail = 0;
+            for (int i = 0; i < d; i++) {
+                double others = 1;
+                for (int j = 0; j < d; j++) {
+                    if (j != i) {
+                        others *= sums[j];
+                    }
+                }
+                tail += tailC * others * gaussTail(a[i], m[i], 0);
+                gradientTail += tailC * gradientOthers(i, m[i], a, sums, weightedSums);
+            }
+            double maxMu = 0;
+            for (int i = 0; i < d; i++) {
+                maxMu = Math.max(maxMu, axes[i].mu[m[i] - 1]);
+            }
+            modalBound = tail + mod.error * decaySum;
+            modalGradientBound = gradientTail + mod.error * decaySum * maxMu * d;
+        }
+
+        /** Tail of the gradient: the complement's part with j_i >= m_i, weighted by mu along every axis. */
+        private double gradientOthers(int i, int mi, double[] a, double[] sums, double[] weightedSums) {
+            double total = 0;
+            for (int w = 0; w < d; w++) {
+                double product = 1;
+                for (int j = 0; j < d; j++) {
+                    if (j == i) {
+                        product *= w == j ? Math.PI / len[j] * gaussTail(a[j], mi, 1) : gaussTail(a[j], mi, 0);
+                    } else {
+                        product *= w == j ? weightedSums[j] : sums[j];
+                    }
+                }
+                total += product;
+            }
+            return total;
+        }
+
+        @Override
+        public int modes() {
+            return modes;
+        }
+
+        @Override
+        public Evaluation temperature(double[] p, int o) {
+            checkPoint(p, o);
+            if (t == 0) {
+                return initialValue(p, o);
+            }
+            Evaluation onFace = onDirichletFace(p, o);
+            if (onFace != null) {
+                return onFace;
+            }
+            double value = 0;
+            double bound = timeVariation;
+            double[] bounds = new double[2];
+            if (sourceAxis >= 0) {
+                Evaluation e = sourceOracle.temperature(p[o + sourceAxis], 0);
+                value += e.value();
+                bound += e.bound();
+            }
+            for (Face f : faces) {
+                value += f.add(p, o, budget / (4 * faces.size()), null, bounds);
+                bound += bounds[0];
+            }
+            if (weighted != null) {
+                double[] vb = modalSum(p, o, null);
+                value += vb[0];
+                bound += vb[1] + modalBound;
+            }
+            if (!(bound <= budget)) {
+                throw notCertified("u", p, o, bound, budget);
+            }
+            return new Evaluation(value, bound);
+        }
+
+        @Override
+        public double gradient(double[] p, int o, double[] out, int oo) {
+            checkPoint(p, o);
+            if (t == 0) {
+                throw new OracleException(Reason.UNSUPPORTED, "oracle: the gradient at t = 0 is that of the initial"
+                    + " temperature; ask for t > 0");
+            }
+            double[] g = new double[d];
+            double bound = timeVariation / minLength();
+            double[] bounds = new double[2];
+            if (sourceAxis >= 0) {
+                Evaluation flux = sourceOracle.heatFlux(p[o + sourceAxis], 0);
+                g[sourceAxis] += -flux.value() / k;
+                bound += flux.bound() / k;
+            }
+            for (Face f : faces) {
+                f.add(p, o, budget / (4 * faces.size()), g, bounds);
+                bound += bounds[1];
+            }
+            if (weighted != null) {
+                double[] vb = modalSum(p, o, g);
+                bound += vb[2] + modalGradientBound;
+            }
+            double limit = budget / lengthScale;
+            if (!(bound <= limit)) {
+                throw notCertified("grad u", p, o, bound, limit);
+            }
+            System.arraycopy(g, 0, out, oo, d);
+            return bound;
+        }
+
+        /** {value, value rounding bound, gradient rounding bound}; adds the gradient into g if not null. */
+        private double[] modalSum(double[] p, int o, double[] g) {
+            double[][] xs = new double[d][];
+            double[][] dxs = g == null ? null : new double[d][];
+            for (int i = 0; i < d; i++) {
+                AxisModes ax = axes[i];
+                xs[i] = new double[m[i]];
+                if (g != null) {
+                    dxs[i] = new double[m[i]];
+                }
+                double x = p[o + i];
+                for (int j = 0; j < m[i]; j++) {
+                    double arg = ax.mu[j] * x + ax.phase[j];
+                    xs[i][j] = Math.sin(arg);
+                    if (g != null) {
+                        dxs[i][j] = ax.mu[j] * Math.cos(arg);
+                    }
+                }
+            }
+            double value = 0;
+            double magnitude = 0;
+            double gMagnitude = 0;
+            if (d == 2) {
+                int m1 = m[1];
+                for (int a = 0; a < m[0]; a++) {
+                    double inner = 0;
+                    double innerAbs = 0;
+                    double innerD = 0;
+                    int row = a * m1;
+                    for (int b = 0; b < m1; b++) {
+                        double c = weighted[row + b];
+                        inner += c * xs[1][b];
+                        innerAbs += Math.abs(c);
+                        if (g != null) {
+                            innerD += c * dxs[1][b];
+                        }
+                    }
+                    value += xs[0][a] * inner;
+                    magnitude += innerAbs;
+                    if (g != null) {
+                        g[0] += dxs[0][a] * inner;
+                        g[1] += xs[0][a] * innerD;
+                        gMagnitude += innerAbs * (axes[0].mu[a] + axes[1].mu[m1 - 1]);
+                    }
+                }
+            } else {
+                int m1 = m[1];
+                int m2 = m[2];
+                for (int a = 0; a < m[0]; a++) {
+                    for (int b = 0; b < m1; b++) {
+                        int row = (a * m1 + b) * m2;
+                        double inner = 0;
+                        double innerAbs = 0;
+                        double innerD = 0;
+                        for (int c = 0; c < m2; c++) {
+                            double w = weighted[row + c];
+                            inner += w * xs[2][c];
+                            innerAbs += Math.abs(w);
+                            if (g != null) {
+                                innerD += w * dxs[2][c];
+                            }
+                        }
+                        double xy = xs[0][a] * xs[1][b];
+                        value += xy * inner;
+                        magnitude += innerAbs;
+                        if (g != null) {
+                            g[0] += dxs[0][a] * xs[1][b] * inner;
+                            g[1] += xs[0][a] * dxs[1][b] * inner;
+                            g[2] += xy * innerD;
+                            gMagnitude += innerAbs * (axes[0].mu[a] + axes[1].mu[b] + axes[2].mu[m2 - 1]);
+                        }
+                    }
+                }
+            }
+            return new double[] {value, 16 * EPS * magnitude, 16 * EPS * gMagnitude};
+        }
+
+        private Evaluation initialValue(double[] p, int o) {
+            double[] point = new double[d];
+            System.arraycopy(p, o, point, 0, d);
+            double g = valueAt(initial, point);
+            for (int i = 0; i < d; i++) {
+                for (int s = 0; s < 2; s++) {
+                    boolean on = s == 0 ? point[i] == 0 : point[i] == len[i];
+                    if (on && type[i][s] == DIRICHLET && Math.abs(faceData(i, s, point) - g) > budget) {
+                        throw new OracleException(Reason.NOT_CERTIFIED, "oracle: at t = 0 on face " + SIDES[i][s].key()
+                            + " the initial temperature " + g + " and the face temperature " + faceData(i, s, point)
+                            + " disagree; u jumps there at t = 0+, so ask for t > 0");
+                    }
+                }
+            }
+            return new Evaluation(g, 4 * EPS * Math.max(Math.abs(g), 1e-3 * scale));
+        }
+
+        /** u is the data on a Dirichlet face, once t > 0 (or in the steady state). */
+        private Evaluation onDirichletFace(double[] p, int o) {
+            for (int i = 0; i < d; i++) {
+                for (int s = 0; s < 2; s++) {
+                    boolean on = s == 0 ? p[o + i] == 0 : p[o + i] == len[i];
+                    if (on && type[i][s] == DIRICHLET) {
+                        double[] point = new double[d];
+                        System.arraycopy(p, o, point, 0, d);
+                        double g = faceData(i, s, point);
+                        return new Evaluation(g, 4 * EPS * Math.max(Math.abs(g), 1e-3 * scale));
+                    }
+                }
+            }
+            return null;
+        }
+    }
+
+    /** sum_{j >= from} (j + 1)^power exp(-a j^2), summed to underflow (terms decrease past the peak). */
+    static double gaussTail(double a, int from, int power) {
+        boolean weighted = power > 0;
+        double sum = 0;
+        for (int j = from; ; j++) {
+            double e = a * (double) j * j;
+            if (e > 745) {
+                break;
+            }
+            double term = Math.exp(-e) * (power == 0 ? 1 : power == 1 ? j + 1 : (j + 1.0) * (j + 1));
+            sum += term;
+            if (term < 1e-30 * sum && (weighted ? 2 * a * j * j > power : true) && j > from + 2) {
+                // the remaining terms decrease at least geometrically with ratio exp(-a (2j + 1)) <= 1/2
+                if (Math.exp(-a * (2 * j + 1)) <= 0.5) {
+                    sum += term;
+                    break;
+                }
+            }
+        }
+        return sum;
+    }
+
+    /** Coefficient bound for sizing the modes before they are computed: ||g|| + 2 ||U|| from samples. */
+    private double roughTailCoefficient() {
+        double volume = 1;
+        double normLower = 1;
+        for (int i = 0; i < d; i++) {
+            volume *= len[i];
+            normLower *= len[i] * (0.5 - 0.5 / Math.PI);
+        }
+        return 4 * scale * Math.sqrt(volume / normLower);
+    }
+
+    private void checkPoint(double[] p, int o) {
+        for (int i = 0; i < d; i++) {
+            double x = p[o + i];
+            if (!(x >= 0 && x <= len[i])) {
+                throw new OracleException(Reason.OUTSIDE_DOMAIN, "oracle: " + NAMES[i] + " = " + x + " m is outside [0, "
+                    + len[i] + "] m");
+            }
+        }
+    }
+
+    private OracleException notCertified(String what, double[] p, int o, double bound, double limit) {
+        double[] point = new double[d];
+        System.arraycopy(p, o, point, 0, d);
+        return new OracleException(Reason.NOT_CERTIFIED, "oracle: " + what + " at " + java.util.Arrays.toString(point)
+            + " has bound " + bound + " > " + limit + " (tolerance times the scale); loosen the tolerance or move the"
+            + " point away from the faces and edges");
+    }
+}

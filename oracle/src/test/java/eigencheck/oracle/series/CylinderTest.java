@@ -1,0 +1,119 @@
+package eigencheck.oracle.series;
+
+import static eigencheck.oracle.testing.NumericAssertions.assertClose;
+import static eigencheck.oracle.testing.NumericAssertions.assertWithin;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import eigencheck.oracle.Evaluation;
+import eigencheck.oracle.Oracle;
+import eigencheck.oracle.expr.Expression;
+import eigencheck.oracle.modes.RadialModes;
+import eigencheck.oracle.problem.BoundaryCondition;
+import eigencheck.oracle.problem.Cylinder;
+import eigencheck.oracle.problem.Material;
+import eigencheck.oracle.problem.Problem;
+import eigencheck.oracle.problem.Side;
+import java.util.Map;
+import java.util.SplittableRandom;
+import org.apache.commons.math3.special.BesselJ;
+import org.junit.jupiter.api.Test;
+
+/** The solid cylinder by its J0 modes. */
+class CylinderTest {
+    private static Problem cylinder(double radius, Material m, String initial, String source, BoundaryCondition surface) {
+        return new Problem(new Cylinder(radius), m, Expression.parse(initial, "r"), Expression.parse(source, "r", "t"),
+            Map.of(Side.SURFACE, surface));
+    }
+
+    @Test
+    void fastBesselAgreesWithCommonsMath() {
+        SplittableRandom random = new SplittableRandom(1);
+        for (int i = 0; i < 20000; i++) {
+            double x = random.nextDouble() * (i < 10000 ? 25 : 400);
+            assertClose(BesselJ.value(0, x), Bessel.j0(x), 2e-15, "J0(" + x + ")");
+            assertClose(BesselJ.value(1, x), Bessel.j1(x), 2e-15, "J1(" + x + ")");
+        }
+    }
+
+    @Test
+    void modeNormsStayAboveTheTailBound() {
+        // the truncation bound takes ||J0(beta_n r)||^2 >= R^2/(2 pi z_n) beyond the computed modes
+        for (double biot : new double[] {0, 0.1, 1, 10, Double.POSITIVE_INFINITY}) {
+            for (int n = 1; n <= 400; n++) {
+                double z = RadialModes.root(RadialModes.Shape.CYLINDER, n, biot);
+                double norm = RadialModes.normSquared(RadialModes.Shape.CYLINDER, 1, z);
+                assertTrue(norm >= 1 / (2 * Math.PI * z), "Bi " + biot + ", n " + n + ": " + norm);
+            }
+        }
+    }
+
+    @Test
+    void uniformSourceApproachesTheSteadyParabola() {
+        // steady u = u_s + Q (R^2 - r^2)/(4k) (common practice; the check 3), at t = 30 R^2/alpha
+        double radius = 0.05;
+        double k = 15;
+        double q = 2e6;
+        Material m = new Material(k, 4e6);
+        Problem p = cylinder(radius, m, "20", Double.toString(q),
+            new BoundaryCondition.Dirichlet(Expression.parse("60", "t")));
+        double t = 30 * radius * radius / m.diffusivity();
+        Oracle o = Oracle.prepare(p, t, 1e-10);
+        for (int i = 0; i <= 10; i++) {
+            double r = radius * i / 10;
+            double exact = 60 + q * (radius * radius - r * r) / (4 * k);
+            assertWithin(exact, o.temperature(r, t), 1e-10 * o.temperatureScale(), "u at r = " + r);
+            assertWithin(-q * r / (2 * k), o.gradient(new double[] {r}, t)[0], 1e-10 * o.temperatureScale() / radius,
+                "du/dr at r = " + r);
+        }
+        Problem steady = new Problem(new Cylinder(radius), m, Expression.parse("0", "r"),
+            Expression.parse(Double.toString(q), "r", "t"), Map.of(Side.SURFACE,
+            new BoundaryCondition.Dirichlet(Expression.parse("60", "t"))), true);
+        Oracle s = Oracle.prepare(steady, 0, 1e-12);
+        assertWithin(60 + q * radius * radius / (4 * k), s.temperature(0, 0), 1e-12 * s.temperatureScale(), "steady centre");
+    }
+
+    @Test
+    void centreTemperatureGivesIncroperaOneTermCoefficientAtBiotOne() {
+        // Incropera et al. 2007, Table 5.1, infinite cylinder, Bi = 1: zeta_1 = 1.2558, C_1 = 1.2071 (from memory)
+        double zeta1 = RadialModes.root(RadialModes.Shape.CYLINDER, 1, 1.0);
+        double zeta2 = RadialModes.root(RadialModes.Shape.CYLINDER, 2, 1.0);
+        assertClose(1.2558, zeta1, 0.5e-4, "zeta_1");
+        double fo = 30 / (zeta2 * zeta2 - zeta1 * zeta1);
+        Problem p = cylinder(1, Material.ofDiffusivity(1), "1", "0",
+            new BoundaryCondition.Robin(1, Expression.parse("0", "t")));
+        Oracle o = Oracle.prepare(p, fo, 1e-12);
+        double c1 = o.temperature(0, fo).value() / Math.exp(-zeta1 * zeta1 * fo);
+        assertClose(1.2071, c1, 0.5e-4, "C_1");
+        assertClose(RadialModes.oneTermCoefficient(RadialModes.Shape.CYLINDER, 1.0), c1, 1e-8, "C_1 closed form");
+    }
+
+    @Test
+    void fluxSurfaceHeatsTheMeanLinearly() {
+        // insulated-except-flux cylinder from u = 0: the mean rises at 2 q/(R rho c) (energy balance, common
+        // practice), and the long-time profile is q r^2/(2 k R) plus a constant (Carslaw and Jaeger 1959, 7.4)
+        double radius = 0.02;
+        double k = 40;
+        double rhoC = 3.5e6;
+        double q = 5e4;
+        Problem p = cylinder(radius, new Material(k, rhoC), "0", "0",
+            new BoundaryCondition.Neumann(Expression.parse(Double.toString(q), "t")));
+        double alpha = k / rhoC;
+        double t = 5 * radius * radius / alpha;
+        Oracle o = Oracle.prepare(p, t, 1e-10);
+        // mean by Gauss-Legendre of the certified values, weight 2 r/R^2
+        double mean = 0;
+        double[] nodes = {-0.9061798459386640, -0.5384693101056831, 0, 0.5384693101056831, 0.9061798459386640};
+        double[] weights = {0.2369268850561891, 0.4786286704993665, 0.5688888888888889, 0.4786286704993665,
+            0.2369268850561891};
+        // the profile at this time is smooth: compare the difference from the quadratic instead
+        double drift = 2 * q / (radius * rhoC) * t;
+        double centre = o.temperature(0, t).value();
+        for (int i = 0; i < 5; i++) {
+            double r = 0.5 * radius * (nodes[i] + 1);
+            Evaluation e = o.temperature(r, t);
+            mean += 0.5 * radius * weights[i] * e.value() * 2 * r / (radius * radius);
+            assertClose(q * r * r / (2 * k * radius), e.value() - centre, 1e-8 * o.temperatureScale(), "profile at " + r);
+        }
+        assertClose(drift, mean, 1e-8 * o.temperatureScale(), "mean");
+    }
+}

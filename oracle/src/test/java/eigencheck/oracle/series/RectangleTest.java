@@ -1,0 +1,164 @@
+package eigencheck.oracle.series;
+
+import static eigencheck.oracle.testing.NumericAssertions.assertCertified;
+import static eigencheck.oracle.testing.NumericAssertions.assertClose;
+import static eigencheck.oracle.testing.NumericAssertions.assertWithin;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import eigencheck.oracle.Evaluation;
+import eigencheck.oracle.Oracle;
+import eigencheck.oracle.OracleException;
+import eigencheck.oracle.expr.Expression;
+import eigencheck.oracle.problem.BoundaryCondition;
+import eigencheck.oracle.problem.Manufactured;
+import eigencheck.oracle.problem.Material;
+import eigencheck.oracle.problem.Problem;
+import eigencheck.oracle.problem.Rectangle;
+import eigencheck.oracle.problem.Side;
+import eigencheck.oracle.problem.Slab;
+import java.util.EnumMap;
+import java.util.Map;
+import java.util.SplittableRandom;
+import org.junit.jupiter.api.Test;
+
+/** The rectangle: steady benchmarks, separable products and manufactured solutions. */
+class RectangleTest {
+    private static Expression xy(String text) {
+        return Expression.parse(text, "x", "y", "t");
+    }
+
+    private static Map<Side, BoundaryCondition> faces(BoundaryCondition xmin, BoundaryCondition xmax,
+                                                      BoundaryCondition ymin, BoundaryCondition ymax) {
+        Map<Side, BoundaryCondition> m = new EnumMap<>(Side.class);
+        m.put(Side.XMIN, xmin);
+        m.put(Side.XMAX, xmax);
+        m.put(Side.YMIN, ymin);
+        m.put(Side.YMAX, ymax);
+        return m;
+    }
+
+    @Test
+    void unitSquarePoissonCentreValue() {
+        // -lap u = 1 on the unit square, u = 0 on the sides: u(1/2, 1/2) = 0.0736713532814 (classical
+        // double-series result, recalled from memory; the check 4)
+        BoundaryCondition zero = new BoundaryCondition.Dirichlet(xy("0"));
+        Problem p = new Problem(new Rectangle(1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y"), xy("1"),
+            faces(zero, zero, zero, zero), true);
+        Oracle o = Oracle.prepare(p, 0, 1e-12);
+        Evaluation centre = o.temperature(new double[] {0.5, 0.5}, 0);
+        // the recalled value has 13 decimals: agreement to its last digit
+        assertClose(0.0736713532814, centre.value(), 1.5e-13, "centre");
+        assertTrue(centre.bound() <= 1e-12 * o.temperatureScale(), "bound " + centre.bound());
+        // a second route, the classical single series in cosh (common practice):
+        // u(1/2, 1/2) = 1/8 - (4/pi^3) sum_{n odd} (-1)^((n-1)/2) / (n^3 cosh(n pi/2))
+        double sum = 0;
+        for (int n = 1; n < 60; n += 2) {
+            sum += ((n / 2) % 2 == 0 ? 1 : -1) / (Math.pow(n, 3) * Math.cosh(n * Math.PI / 2));
+        }
+        assertCertified(0.125 - 4 / Math.pow(Math.PI, 3) * sum, centre, "single series");
+    }
+
+    @Test
+    void nafemsT4() {
+        // NAFEMS T4 ("The Standard NAFEMS Benchmarks", TNSB Rev. 3, 1990): plate 0.6 m (x) by 1.0 m (y),
+        // k = 52 W/(m K), u = 100 degC on y = 0, x = 0 insulated, x = 0.6 and y = 1 convect to 0 degC with
+        // h = 750 W/(m^2 K); target u(0.6, 0.2) = 18.25 degC, 18.254 from a converged series (the check 5)
+        BoundaryCondition convect = new BoundaryCondition.Robin(750, xy("0"));
+        Problem p = new Problem(new Rectangle(0.6, 1.0), new Material(52, 1), Expression.parse("0", "x", "y"),
+            xy("0"), faces(new BoundaryCondition.Neumann(xy("0")), convect, new BoundaryCondition.Dirichlet(xy("100")),
+            convect), true);
+        Oracle o = Oracle.prepare(p, 0, 1e-10);
+        Evaluation target = o.temperature(new double[] {0.6, 0.2}, 0);
+        assertClose(18.254, target.value(), 0.5e-3, "u(0.6, 0.2)");
+        assertEquals(18.25, Math.round(target.value() * 100) / 100.0, 1e-12, "to the benchmark's two decimals");
+        assertTrue(target.bound() <= 1e-10 * 100, "bound " + target.bound());
+        System.out.printf("NAFEMS T4: u(0.6, 0.2) = %.10f +- %.1e%n", target.value(), target.bound());
+    }
+
+    @Test
+    void separableProductEqualsTheProductOfTwoSlabOracles() {
+        // u = U1(x, t) U2(y, t) solves the rectangle's homogeneous problem when U1 and U2 solve the slabs'
+        // (common practice); the check 6, to 1e-12
+        double alpha = 2e-5;
+        Material m = Material.ofDiffusivity(alpha);
+        BoundaryCondition d0 = new BoundaryCondition.Dirichlet(Expression.parse("0", "t"));
+        BoundaryCondition r0 = new BoundaryCondition.Robin(3e-4, Expression.parse("0", "t"));
+        BoundaryCondition n0 = new BoundaryCondition.Neumann(Expression.parse("0", "t"));
+        double lx = 0.08;
+        double ly = 0.05;
+        String a = "x*(0.08-x)*(1+20*x)";
+        String b = "cos(40*y)+2";
+        Map<Side, BoundaryCondition> sx = new EnumMap<>(Side.class);
+        sx.put(Side.XMIN, d0);
+        sx.put(Side.XMAX, r0);
+        Map<Side, BoundaryCondition> sy = new EnumMap<>(Side.class);
+        sy.put(Side.XMIN, n0);
+        sy.put(Side.XMAX, r0);
+        double horizon = 100;
+        Oracle ox = Oracle.prepare(new Problem(new Slab(lx), m, Expression.parse(a, "x"), Expression.parse("0", "x", "t"),
+            sx), horizon, 1e-13);
+        Oracle oy = Oracle.prepare(new Problem(new Slab(ly), m, Expression.parse(b.replace("y", "x"), "x"),
+            Expression.parse("0", "x", "t"), sy), horizon, 1e-13);
+        Problem rect = new Problem(new Rectangle(lx, ly), m, Expression.parse("(" + a + ")*(" + b + ")", "x", "y"),
+            xy("0"), faces(new BoundaryCondition.Dirichlet(xy("0")), new BoundaryCondition.Robin(3e-4, xy("0")),
+            new BoundaryCondition.Neumann(xy("0")), new BoundaryCondition.Robin(3e-4, xy("0"))));
+        Oracle o = Oracle.prepare(rect, horizon, 1e-12);
+        SplittableRandom random = new SplittableRandom(5);
+        double worst = 0;
+        for (int i = 0; i < 200; i++) {
+            double x = random.nextDouble() * lx;
+            double y = random.nextDouble() * ly;
+            double t = 1 + random.nextDouble() * (horizon - 1);
+            double product = ox.temperature(x, t).value() * oy.temperature(y, t).value();
+            Evaluation e = o.temperature(new double[] {x, y}, t);
+            worst = Math.max(worst, Math.abs(e.value() - product));
+            assertTrue(Math.abs(e.value() - product) <= 1e-12 * o.temperatureScale(), "product at " + x + ", " + y
+                + ", t = " + t + ": " + e.value() + " vs " + product);
+        }
+        System.out.printf("separable product: worst difference %.2e of scale %.3f%n", worst, o.temperatureScale());
+    }
+
+    @Test
+    void manufacturedHarmonicPlusDecayingModeWithSourceAlongX() {
+        // u = 1 + 3 x (1 - x) + (x^2 - y^2) + exp(-alpha lambda t) sin(pi x) cos(nu y), nu the first root of
+        // nu tan(nu Ly) = h/k (Robin at y = Ly, Neumann at y = 0): Q = 6 k, constant; faces derived exactly
+        double k = 1;
+        double h = 4;
+        double ly = 0.7;
+        double nu = eigencheck.oracle.modes.SlabModes.root(1, 0, h * ly) / ly;
+        double lambda = Math.PI * Math.PI + nu * nu;
+        String u = "1 + 3*x*(1-x) + x^2 - y^2 + exp(-" + lambda + "*t)*sin(pi*x)*cos(" + nu + "*y)";
+        Expression exact = xy(u);
+        Map<Side, Manufactured.Face> kinds = new EnumMap<>(Side.class);
+        kinds.put(Side.XMIN, Manufactured.Face.dirichlet());
+        kinds.put(Side.XMAX, Manufactured.Face.dirichlet());
+        kinds.put(Side.YMIN, Manufactured.Face.neumann());
+        kinds.put(Side.YMAX, Manufactured.Face.robin(h));
+        Problem p = Manufactured.cartesian(exact, new Rectangle(1, ly), Material.ofDiffusivity(k), kinds);
+        Oracle o = Oracle.prepare(p, 2, 1e-10);
+        SplittableRandom random = new SplittableRandom(11);
+        for (int i = 0; i < 300; i++) {
+            double x = 0.02 + 0.96 * random.nextDouble();
+            double y = (0.02 + 0.96 * random.nextDouble()) * ly;
+            double t = random.nextDouble() < 0.2 ? 0 : 0.002 + 1.998 * random.nextDouble();
+            assertWithin(exact.value(x, y, t), o.temperature(new double[] {x, y}, t), 1e-10 * o.temperatureScale(),
+                "u at " + x + ", " + y + ", " + t);
+        }
+    }
+
+    @Test
+    void refusesTimeDependentDataAndTwoDimensionalSources() {
+        BoundaryCondition zero = new BoundaryCondition.Dirichlet(xy("0"));
+        Problem timed = new Problem(new Rectangle(1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y"),
+            xy("0"), faces(new BoundaryCondition.Dirichlet(xy("sin(t)")), zero, zero, zero));
+        OracleException e = assertThrows(OracleException.class, () -> Oracle.prepare(timed, 1, 1e-8));
+        assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
+        assertTrue(e.getMessage().contains("boundary.xmin"), e.getMessage());
+        Problem source = new Problem(new Rectangle(1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y"),
+            xy("x*y"), faces(zero, zero, zero, zero));
+        e = assertThrows(OracleException.class, () -> Oracle.prepare(source, 1, 1e-8));
+        assertTrue(e.getMessage().contains("varies along x and y"), e.getMessage());
+    }
+}
