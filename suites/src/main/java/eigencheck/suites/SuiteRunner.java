@@ -263,8 +263,7 @@ public final class SuiteRunner {
             String name = fieldName(c, f);
             eigencheck.suites.norms.Reference ref = c.manufactured() != null
                 ? new eigencheck.suites.norms.ManufacturedReference(c.manufactured(), t, 0)
-                : c.problem().domain() instanceof eigencheck.oracle.problem.Sphere
-                ? new eigencheck.suites.norms.SphereReference(oracle, t) : new SlabReference(oracle, t, 0);
+                : referenceOf(oracle, t);
             boolean slabProblem = c.problem() != null && c.problem().domain() instanceof Slab;
             String suffix = "@t=" + fmt(t);
             ErrorNorms.Result r;
@@ -314,6 +313,18 @@ public final class SuiteRunner {
             }
         }
         return out;
+    }
+
+    /** The oracle's reference at time t, read the way its body needs (slab along x, radial, Cartesian). */
+    public static eigencheck.suites.norms.Reference referenceOf(Oracle oracle, double t) {
+        eigencheck.oracle.problem.Domain d = oracle.problem().domain();
+        if (d instanceof eigencheck.oracle.problem.Sphere || d instanceof eigencheck.oracle.problem.Cylinder) {
+            return new eigencheck.suites.norms.RadialReference(oracle, t);
+        }
+        if (d instanceof Slab) {
+            return new SlabReference(oracle, t, 0);
+        }
+        return new eigencheck.suites.norms.CartesianReference(oracle, t);
     }
 
     private static String fieldName(Suite.Case c, Field f) {

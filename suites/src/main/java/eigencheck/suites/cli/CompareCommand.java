@@ -96,13 +96,13 @@ final class CompareCommand implements Callable<Integer> {
             throw new InputException(InputException.Cause.MISSING, InputLocation.of(output),
                 "the output gives no time; say which with --time");
         }
-        boolean sphere = problem.domain() instanceof eigencheck.oracle.problem.Sphere;
-        if (!sphere) {
+        boolean slab = problem.domain() instanceof eigencheck.oracle.problem.Slab;
+        if (slab) {
             checkAxis(f, axisIndex);
         }
         Oracle oracle = Oracle.prepare(problem, t, tolerance);
-        eigencheck.suites.norms.Reference reference = sphere ? new eigencheck.suites.norms.SphereReference(oracle, t)
-            : new SlabReference(oracle, t, axisIndex);
+        eigencheck.suites.norms.Reference reference = slab ? new SlabReference(oracle, t, axisIndex)
+            : eigencheck.suites.SuiteRunner.referenceOf(oracle, t);
         String name = fieldName(f);
         ErrorNorms.Result r;
         try {

@@ -79,7 +79,16 @@ final class EvalCommand implements Callable<Integer> {
         double[] value = new double[n];
         double[] bound = new double[n];
         try {
-            oracle.evaluate(q, points.x, points.t, value, bound);
+            if (q == Oracle.Quantity.HEAT_FLUX && oracle.dimension() > 1 || q == Oracle.Quantity.HEAT_FLUX
+                && !(problem.domain() instanceof eigencheck.oracle.problem.Slab)) {
+                throw new picocli.CommandLine.ParameterException(spec.commandLine(), "--quantity flux is the slab's"
+                    + " -k du/dx; for " + problem.domain().coordinates() + " bodies evaluate the temperature");
+            }
+            if (oracle.dimension() == 1) {
+                oracle.evaluate(q, points.x, points.t, value, bound);
+            } else {
+                oracle.evaluatePoints(points.x, points.t, value, bound, null, null);
+            }
         } catch (OracleException e) {
             String message = e.getMessage();
             int colon = message.indexOf(": ");
@@ -169,7 +178,10 @@ final class EvalCommand implements Callable<Integer> {
         }
     }
 
-    /** Points read from a CSV file, with the line and the original text of each. */
+    /**
+     * Points read from a CSV file, with the line and the original text of each: {@code x} holds the
+     * d coordinates of each point in turn, {@code xText} the coordinate cells of each row joined by commas.
+     */
     record Points(double[] x, double[] t, int[] line, String[] xText, String[] tText) {
     }
 
@@ -179,14 +191,10 @@ final class EvalCommand implements Callable<Integer> {
             throw new InputException(InputException.Cause.UNREADABLE, InputLocation.of(file),
                 "no such file; check the path of --points");
         }
-        if (coordinates.size() != 1) {
-            throw new InputException(InputException.Cause.INVALID_VALUE, InputLocation.of(file),
-                "this version evaluates one-coordinate domains (columns x,t for a slab, r,t for a sphere)");
-        }
+        int d = coordinates.size();
         List<String> needed = new ArrayList<>(coordinates);
         needed.add("t");
-        List<String> xs = new ArrayList<>();
-        List<String> ts = new ArrayList<>();
+        List<String[]> cells = new ArrayList<>();
         List<Integer> lines = new ArrayList<>();
         List<InputException.Problem> problems = new ArrayList<>();
         int[] index = new int[needed.size()];
@@ -212,7 +220,10 @@ final class EvalCommand implements Callable<Integer> {
             if (!problems.isEmpty()) {
                 throw new InputException(problems);
             }
-            int width = (needed.size() > 1 ? Math.max(index[0], index[1]) : index[0]) + 1;
+            int width = 0;
+            for (int j = 0; j < needed.size(); j++) {
+                width = Math.max(width, index[j] + 1);
+            }
             for (CSVRecord record : parser) {
                 int line = (int) parser.getCurrentLineNumber();
                 if (record.size() < width) {
@@ -224,8 +235,14 @@ final class EvalCommand implements Callable<Integer> {
                     }
                     continue;
                 }
-                xs.add(record.get(index[0]));
-                ts.add(needed.size() > 1 ? record.get(index[1]) : "");
+                String[] row = new String[d + 1];
+                for (int j = 0; j < needed.size(); j++) {
+                    row[j] = record.get(index[j]);
+                }
+                if (needed.size() == d) {
+                    row[d] = "";
+                }
+                cells.add(row);
                 lines.add(line);
             }
         } catch (IOException | IllegalArgumentException | IllegalStateException e) {
@@ -233,36 +250,43 @@ final class EvalCommand implements Callable<Integer> {
             problems.add(new InputException.Problem(InputException.Cause.MALFORMED, InputLocation.of(file),
                 "cannot read the points: " + message));
         }
-        int n = xs.size();
-        String[] xText = xs.toArray(String[]::new);
-        String[] tText = ts.toArray(String[]::new);
-        double[] x = new double[n];
+        int n = cells.size();
+        boolean timed = needed.size() > d;
+        double[] x = new double[n * d];
         double[] t = new double[n];
         boolean[] bad = new boolean[n];
-        boolean timed = needed.size() > 1;
         java.util.stream.IntStream.range(0, n).parallel().forEach(i -> {
-            x[i] = parse(xText[i]);
-            t[i] = timed ? parse(tText[i]) : 0;
-            bad[i] = !Double.isFinite(x[i]) || !(t[i] >= 0) || !Double.isFinite(t[i]);
+            String[] row = cells.get(i);
+            boolean b = false;
+            for (int j = 0; j < d; j++) {
+                x[i * d + j] = parse(row[j]);
+                b |= !Double.isFinite(x[i * d + j]);
+            }
+            t[i] = timed ? parse(row[d]) : 0;
+            bad[i] = b || !(t[i] >= 0) || !Double.isFinite(t[i]);
         });
         int[] line = new int[n];
+        String[] xText = new String[n];
+        String[] tText = new String[n];
         for (int i = 0; i < n; i++) {
             line[i] = lines.get(i);
+            String[] row = cells.get(i);
+            xText[i] = d == 1 ? row[0] : String.join(",", java.util.Arrays.copyOf(row, d));
+            tText[i] = row[d];
             if (bad[i] && problems.size() < 20) {
-                String[] cells = {xText[i], tText[i]};
-                double[] values = {x[i], t[i]};
                 for (int j = 0; j < needed.size(); j++) {
                     InputLocation at = InputLocation.at(file, line[i], index[j] + 1, "");
                     String name = needed.get(j);
-                    if (Double.isNaN(values[j]) && !cells[j].equalsIgnoreCase("nan")) {
+                    double value = parse(row[j]);
+                    if (Double.isNaN(value) && !row[j].equalsIgnoreCase("nan")) {
                         problems.add(new InputException.Problem(InputException.Cause.NOT_A_NUMBER, at, "column \""
-                            + name + "\": \"" + cells[j] + "\" is not a number; write plain decimal numbers such as"
+                            + name + "\": \"" + row[j] + "\" is not a number; write plain decimal numbers such as"
                             + " 0.05 or 1e-3"));
-                    } else if (!Double.isFinite(values[j])) {
+                    } else if (!Double.isFinite(value)) {
                         problems.add(new InputException.Problem(InputException.Cause.NOT_A_NUMBER, at, "column \""
-                            + name + "\": " + cells[j] + " is not finite; give finite numbers"));
-                    } else if (j == 1 && values[j] < 0) {
-                        problems.add(new InputException.Problem(InputException.Cause.OUT_OF_RANGE, at, "t = " + cells[j]
+                            + name + "\": " + row[j] + " is not finite; give finite numbers"));
+                    } else if (j == d && value < 0) {
+                        problems.add(new InputException.Problem(InputException.Cause.OUT_OF_RANGE, at, "t = " + row[j]
                             + " s is negative; times must be >= 0"));
                     }
                 }

@@ -41,6 +41,18 @@ public final class ProblemFile {
         if (p.domain() instanceof eigencheck.oracle.problem.Sphere sphere) {
             domain.put("shape", "sphere");
             domain.put("radius", sphere.radius());
+        } else if (p.domain() instanceof eigencheck.oracle.problem.Cylinder cylinder) {
+            domain.put("shape", "cylinder");
+            domain.put("radius", cylinder.radius());
+        } else if (p.domain() instanceof eigencheck.oracle.problem.Rectangle rect) {
+            domain.put("shape", "rectangle");
+            domain.put("lengthX", rect.lengthX());
+            domain.put("lengthY", rect.lengthY());
+        } else if (p.domain() instanceof eigencheck.oracle.problem.Box box) {
+            domain.put("shape", "box");
+            domain.put("lengthX", box.lengthX());
+            domain.put("lengthY", box.lengthY());
+            domain.put("lengthZ", box.lengthZ());
         } else {
             domain.put("shape", "slab");
             domain.put("length", ((Slab) p.domain()).length());
@@ -134,7 +146,7 @@ public final class ProblemFile {
             if (b != null && domainSides == null) {
                 // the domain is unusable: still check each condition that is there
                 for (Node n : b.fields().values()) {
-                    condition(c, n);
+                    condition(c, n, new String[] {"t"});
                 }
             } else if (b != null) {
                 List<String> sides = domainSides.stream().map(Side::key).toList();
@@ -142,7 +154,7 @@ public final class ProblemFile {
                 for (Side side : domainSides) {
                     Node n = c.required(b, side.key(), "give {dirichlet: ...}, {neumann: ...} or {robin: {h, ambient}}");
                     if (n != null) {
-                        BoundaryCondition bc = condition(c, n);
+                        BoundaryCondition bc = condition(c, n, faceVariables(space, side));
                         if (bc != null) {
                             boundary.put(side, bc);
                         }
@@ -158,8 +170,35 @@ public final class ProblemFile {
         }
     }
 
+    /** The variables of a side's data: the coordinates along the side, then t. */
+    private static String[] faceVariables(String[] space, Side side) {
+        if (space.length == 1) {
+            return new String[] {"t"};
+        }
+        String normal = side.key().substring(0, 1);
+        List<String> vars = new java.util.ArrayList<>();
+        for (String s : space) {
+            if (!s.equals(normal)) {
+                vars.add(s);
+            }
+        }
+        vars.add("t");
+        return vars.toArray(String[]::new);
+    }
+
     /** The sides of the shape the domain names, even when its sizes are wrong; null if unknown. */
     private static List<Side> sidesOfShape(Node domainNode) {
+        if (domainNode instanceof Node.Obj o && o.fields().get("shape") instanceof Node.Scalar s) {
+            if ("rectangle".equals(s.value())) {
+                return List.of(Side.XMIN, Side.XMAX, Side.YMIN, Side.YMAX);
+            }
+            if ("box".equals(s.value())) {
+                return List.of(Side.XMIN, Side.XMAX, Side.YMIN, Side.YMAX, Side.ZMIN, Side.ZMAX);
+            }
+            if ("cylinder".equals(s.value())) {
+                return List.of(Side.SURFACE);
+            }
+        }
         if (domainNode instanceof Node.Obj o && o.fields().get("shape") instanceof Node.Scalar s
             && "slab".equals(s.value())) {
             return List.of(Side.XMIN, Side.XMAX);
@@ -199,10 +238,34 @@ public final class ProblemFile {
             double r = c.positive(radius, "the sphere's radius in m");
             return Double.isNaN(r) ? null : new eigencheck.oracle.problem.Sphere(r);
         }
-        if (!shape.equals("slab")) {
-            c.problem(InputException.Cause.INVALID_VALUE, shapeNode.location(), "shape \"" + shape
-                + "\" is not solved by this version yet; use slab or sphere");
-            return null;
+        if (shape.equals("cylinder")) {
+            c.allowOnly(o, List.of("shape", "radius"));
+            Node radius = c.required(o, "radius", "the cylinder's radius in m, for example 0.05");
+            if (radius == null) {
+                return null;
+            }
+            double r = c.positive(radius, "the cylinder's radius in m");
+            return Double.isNaN(r) ? null : new eigencheck.oracle.problem.Cylinder(r);
+        }
+        if (shape.equals("rectangle") || shape.equals("box")) {
+            List<String> keys = shape.equals("box") ? List.of("lengthX", "lengthY", "lengthZ")
+                : List.of("lengthX", "lengthY");
+            List<String> allowed = new java.util.ArrayList<>(keys);
+            allowed.add(0, "shape");
+            c.allowOnly(o, allowed);
+            double[] l = new double[keys.size()];
+            boolean ok = true;
+            for (int i = 0; i < keys.size(); i++) {
+                Node ln = c.required(o, keys.get(i), "the " + shape + "'s edge along " + "xyz".charAt(i)
+                    + " in m, for example 0.1");
+                l[i] = ln == null ? Double.NaN : c.positive(ln, "the edge length in m");
+                ok &= !Double.isNaN(l[i]);
+            }
+            if (!ok) {
+                return null;
+            }
+            return shape.equals("box") ? new eigencheck.oracle.problem.Box(l[0], l[1], l[2])
+                : new eigencheck.oracle.problem.Rectangle(l[0], l[1]);
         }
         c.allowOnly(o, List.of("shape", "length"));
         Node length = c.required(o, "length", "the slab's thickness in m, for example 0.1");
@@ -260,7 +323,7 @@ public final class ProblemFile {
         return new Material(k, rhoC);
     }
 
-    private static BoundaryCondition condition(Checker c, Node n) {
+    private static BoundaryCondition condition(Checker c, Node n, String[] time) {
         Node.Obj o = c.object(n, "give {dirichlet: \"u(t)\"}, {neumann: \"q(t)\"} or {robin: {h: 25, ambient: \"20\"}}");
         if (o == null) {
             return null;
@@ -272,14 +335,14 @@ public final class ProblemFile {
         }
         String type = o.fields().keySet().iterator().next();
         Node value = o.fields().get(type);
-        String[] time = {"t"};
+        String of = String.join(", ", time);
         switch (type) {
             case "dirichlet": {
-                Expression e = c.expression(value, time, "the face temperature is an expression of t");
+                Expression e = c.expression(value, time, "the face temperature is an expression of " + of);
                 return e == null ? null : new BoundaryCondition.Dirichlet(e);
             }
             case "neumann": {
-                Expression e = c.expression(value, time, "the heat flux into the body (W/m^2) is an expression of t");
+                Expression e = c.expression(value, time, "the heat flux into the body (W/m^2) is an expression of " + of);
                 return e == null ? null : new BoundaryCondition.Neumann(e);
             }
             case "robin": {
@@ -293,7 +356,7 @@ public final class ProblemFile {
                 double hv = h == null ? Double.NaN : c.positive(h, "the heat transfer coefficient in W/(m^2 K); for an"
                     + " insulated side use neumann: 0");
                 Expression a = ambient == null ? null : c.expression(ambient, time, "the ambient temperature is an"
-                    + " expression of t");
+                    + " expression of " + of);
                 return Double.isNaN(hv) || a == null ? null : new BoundaryCondition.Robin(hv, a);
             }
             default: {

@@ -42,6 +42,24 @@ class EvalCommandTest {
     }
 
     @Test
+    void answersNafemsT4OnTheRectangle() throws IOException {
+        // NAFEMS TNSB Rev. 3 (1990), T4: u(0.6 m, 0.2 m) = 18.25 degC, 18.254 from a converged series
+        Path t4 = Path.of("..", "reference-data", "problems", "nafems-t4.yaml");
+        Path points = Path.of("..", "reference-data", "problems", "nafems-t4-points.csv");
+        Path out = dir.resolve("t4.csv");
+        CliRun r = run("eval", t4.toString(), "--points", points.toString(), "--out", out.toString());
+        assertEquals(0, r.code(), r.err());
+        List<String> lines = Files.readAllLines(out);
+        assertEquals("x,y,u,bound", lines.get(0));
+        String[] cells = lines.get(1).split(",");
+        assertEquals("0.6", cells[0]);
+        assertEquals(18.254, Double.parseDouble(cells[2]), 0.5e-3);
+        assertTrue(Double.parseDouble(cells[3]) <= 1e-10 * 100, lines.get(1));
+        // the corner on the Dirichlet side is the side's temperature itself
+        assertEquals(100, Double.parseDouble(lines.get(3).split(",")[2]), 1e-12);
+    }
+
+    @Test
     void nonNumericCellAndNegativeTimeAreOneLineErrorsWithTheirPlace() throws IOException {
         Path points = file("p.csv", "x,t\n0.05,1\n0.02,1.0e-3.5\n0.03,-1\n");
         CliRun r = run("eval", T3, "--points", points.toString());

@@ -98,15 +98,62 @@ class ProblemFileTest {
     }
 
     @Test
-    void malformedYamlAndShapesOfLaterVersionsAreReported() {
+    void rectangleBoxAndCylinderAreRead() throws InputException {
+        Problem r = ProblemFile.fromTree(TreeReader.parse(Path.of("r.yaml"), """
+            domain: {shape: rectangle, lengthX: 0.6, lengthY: 1.0}
+            material: {conductivity: 52, volumetricHeatCapacity: 1}
+            steady: true
+            boundary:
+              xmin: {neumann: "0"}
+              xmax: {robin: {h: 750, ambient: "0"}}
+              ymin: {dirichlet: "100 + 0*x"}
+              ymax: {robin: {h: 750, ambient: "0"}}
+            """));
+        assertEquals(java.util.List.of("x", "y"), r.domain().coordinates());
+        assertEquals(java.util.List.of("x", "t"), r.condition(eigencheck.oracle.problem.Side.YMIN).data().variables());
+        Problem b = ProblemFile.fromTree(TreeReader.parse(Path.of("b.yaml"), ProblemFile.toJson(new Problem(
+            new eigencheck.oracle.problem.Box(1, 2, 3), eigencheck.oracle.problem.Material.ofDiffusivity(1),
+            eigencheck.oracle.expr.Expression.parse("x*y*z", "x", "y", "z"),
+            eigencheck.oracle.expr.Expression.parse("0", "x", "y", "z", "t"), boxFaces()))));
+        assertEquals(3.0, ((eigencheck.oracle.problem.Box) b.domain()).lengthZ());
+        assertEquals(java.util.List.of("x", "y", "t"), b.condition(eigencheck.oracle.problem.Side.ZMAX).data().variables());
+        Problem c = ProblemFile.fromTree(TreeReader.parse(Path.of("c.yaml"), """
+            domain: {shape: cylinder, radius: 0.05}
+            material: {diffusivity: 1e-5}
+            initial: "20"
+            boundary: {surface: {robin: {h: 500, ambient: "300"}}}
+            """));
+        assertEquals(0.05, ((eigencheck.oracle.problem.Cylinder) c.domain()).radius());
+    }
+
+    private static java.util.Map<eigencheck.oracle.problem.Side, eigencheck.oracle.problem.BoundaryCondition> boxFaces() {
+        java.util.Map<eigencheck.oracle.problem.Side, eigencheck.oracle.problem.BoundaryCondition> m =
+            new java.util.EnumMap<>(eigencheck.oracle.problem.Side.class);
+        String[][] vars = {{"y", "z", "t"}, {"y", "z", "t"}, {"x", "z", "t"}, {"x", "z", "t"}, {"x", "y", "t"},
+            {"x", "y", "t"}};
+        eigencheck.oracle.problem.Side[] sides = eigencheck.oracle.problem.Side.values();
+        for (int i = 0; i < 6; i++) {
+            m.put(sides[i], new eigencheck.oracle.problem.BoundaryCondition.Dirichlet(
+                eigencheck.oracle.expr.Expression.parse("1 + " + vars[i][0], vars[i])));
+        }
+        return m;
+    }
+
+    @Test
+    void malformedYamlAndMisplacedFaceVariablesAreReported() {
         assertEquals(InputException.Cause.MALFORMED, fail("p.yaml", "domain: [1\n").cause());
+        // a side's data are expressions of the coordinates along it: x on the face x = 0 is an error
         InputException e = fail("p.yaml", """
-            domain: {shape: cylinder, radius: 1}
+            domain: {shape: rectangle, lengthX: 1, lengthY: 2}
             material: {diffusivity: 1}
             initial: "0"
-            boundary: {surface: {dirichlet: "0"}}
+            boundary:
+              xmin: {dirichlet: "x + y"}
+              xmax: {neumann: "0"}
+              ymin: {robin: {h: 5, ambient: "20"}}
+              ymax: {dirichlet: "0"}
             """);
-        assertTrue(e.getMessage().contains("not solved by this version yet"), e.getMessage());
+        assertTrue(e.getMessage().contains("boundary.xmin") && e.getMessage().contains("y, t"), e.getMessage());
         assertTrue(fail("p.yaml", "domain: {shape: slap, length: 1}\n").getMessage().contains("did you mean \"slab\""));
     }
 }
