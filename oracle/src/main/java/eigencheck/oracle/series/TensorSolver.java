@@ -1,7 +1,6 @@
 package eigencheck.oracle.series;
 
 import eigencheck.oracle.Evaluation;
-import eigencheck.oracle.Oracle;
 import eigencheck.oracle.OracleException;
 import eigencheck.oracle.OracleException.Reason;
 import eigencheck.oracle.expr.Expression;
@@ -66,7 +65,8 @@ public final class TensorSolver implements SpatialSolver {
     private final double[][] h = new double[3][2];
     private final Expression[][] data = new Expression[3][2];
     private final int sourceAxis;
-    private final Oracle sourceOracle;
+    private final SlabSolver.Slice sourceSlice;
+    private final Expression sourceAlong;
     private final List<Face> faces = new ArrayList<>();
     private final Expression initial;
     private final int transientCap;
@@ -149,7 +149,9 @@ public final class TensorSolver implements SpatialSolver {
         }
         this.timeVariation = variation;
         this.sourceAxis = zeroSource ? -1 : along;
-        this.sourceOracle = zeroSource ? null : sourceSlab(problem, along, tolerance / 8);
+        Problem slab = zeroSource ? null : sourceSlab(problem, along);
+        this.sourceAlong = zeroSource ? null : slab.source();
+        this.sourceSlice = zeroSource ? null : new SlabSolver(slab, 0, tolerance / 8).at(0);
         this.initial = problem.initial();
         this.scale = scaleOf(problem);
         for (int i = 0; i < d; i++) {
@@ -226,7 +228,7 @@ public final class TensorSolver implements SpatialSolver {
     }
 
     /** The steady slab problem of P along {@code axis}, with that axis's homogeneous face conditions. */
-    private Oracle sourceSlab(Problem problem, int axis, double tol) {
+    private Problem sourceSlab(Problem problem, int axis) {
         Map<Side, BoundaryCondition> bc = new EnumMap<>(Side.class);
         Side[] slabSides = {Side.XMIN, Side.XMAX};
         for (int s = 0; s < 2; s++) {
@@ -250,8 +252,7 @@ public final class TensorSolver implements SpatialSolver {
         if (axis != 0) {
             q = q.renamed(NAMES[axis], "x");
         }
-        Problem slab = new Problem(new Slab(len[axis]), problem.material(), Expression.parse("0", "x"), q, bc, true);
-        return Oracle.prepare(slab, 0, tol);
+        return new Problem(new Slab(len[axis]), problem.material(), Expression.parse("0", "x"), q, bc, true);
     }
 
     @Override
@@ -461,23 +462,15 @@ public final class TensorSolver implements SpatialSolver {
         return result;
     }
 
-    /** One face's elliptic series. */
+    /** One face's elliptic series; its coefficients grow on demand up to {@link #cap} per direction. */
     private final class Face {
         final int axis;
         final int side;
         final int[] tangential;
         final int[] cap;
         final double depth;
-        boolean present;
-        double[] coef;
-        double[] kappa;
-        double[] amplitude; // a_m
-        double[] rho;
-        double[] beta; // kappa = 0: y = 1 + beta s
-        double error;
-        double norm;
-        double sup; // bound of 2 |a_m| |G_m| over all m
-        double profileNorm; // bound of ||a_m y_m|| over all m
+        final boolean present;
+        private volatile Table table;
 
         Face(int axis, int side) {
             this.axis = axis;
@@ -490,80 +483,127 @@ public final class TensorSolver implements SpatialSolver {
                 }
             }
             cap = new int[d - 1];
-            java.util.Arrays.fill(cap, d == 2 ? 2048 : 160);
-            double[] base = new double[d];
-            base[axis] = side == 0 ? 0 : len[axis];
-            double[][] p = project(point -> faceData(axis, side, point) - sourcePart(axis, side, point), tangential,
-                cap, base);
-            norm = p[1][1];
-            if (norm == 0) {
-                present = false;
-                return;
+            java.util.Arrays.fill(cap, d == 2 ? 8192 : 160);
+            int[] start = new int[d - 1];
+            java.util.Arrays.fill(start, d == 2 ? 256 : 32);
+            Table first = new Table(start);
+            present = first.norm > 0;
+            table = first;
+        }
+
+        /** Coefficients for at least {@code needed} modes per direction. */
+        Table table(int[] needed) {
+            Table t = table;
+            boolean enough = true;
+            for (int i = 0; i < needed.length; i++) {
+                enough &= t.size[i] >= needed[i];
             }
-            present = true;
-            coef = p[0];
-            error = p[1][0];
-            int count = coef.length;
-            kappa = new double[count];
-            amplitude = new double[count];
-            rho = new double[count];
-            beta = new double[count];
-            double normLower = 1;
-            for (int t : tangential) {
-                normLower *= axes[t].normLowerBound(cap[0]);
+            if (enough) {
+                return t;
             }
-            double aMax = 0;
-            double yMax = 0;
-            int far = 1 - side;
-            for (int c = 0; c < count; c++) {
-                int rest = c;
-                double k2 = 0;
-                for (int i = tangential.length - 1; i >= 0; i--) {
-                    int j = rest % cap[i];
-                    rest /= cap[i];
-                    double m = axes[tangential[i]].mu[j];
-                    k2 += m * m;
+            synchronized (this) {
+                t = table;
+                int[] size = new int[needed.length];
+                boolean grow = false;
+                for (int i = 0; i < needed.length; i++) {
+                    size[i] = Math.min(cap[i], Math.max(needed[i], t.size[i] >= needed[i] ? t.size[i] : 2 * t.size[i]));
+                    grow |= size[i] > t.size[i];
                 }
-                double kap = Math.sqrt(k2);
-                kappa[c] = kap;
-                double y0;
-                double dy0;
-                if (kap == 0) {
-                    beta[c] = switch (type[axis][far]) {
-                        case DIRICHLET -> -1 / depth;
-                        case NEUMANN -> 0;
-                        default -> -h[axis][far] / (k + h[axis][far] * depth);
+                if (grow) {
+                    table = new Table(size);
+                }
+                return table;
+            }
+        }
+
+        /** The face's coefficients and profiles for modes 0..size[i]-1 of each tangential axis. */
+        final class Table {
+            final int[] size;
+            final double[] coef;
+            final double[] kappa;
+            final double[] amplitude; // a_m
+            final double[] rho;
+            final double[] beta; // kappa = 0: y = 1 + beta s
+            final double error;
+            final double norm;
+            final double sup; // bound of 2 |a_m| |G_m| over all m
+            final double profileNorm; // bound of ||a_m y_m|| over all m
+
+            Table(int[] size) {
+                this.size = size.clone();
+                double[] base = new double[d];
+                base[axis] = side == 0 ? 0 : len[axis];
+                double[][] p = project(point -> faceData(axis, side, point) - sourcePart(axis, side, point), tangential,
+                    this.size, base);
+                norm = p[1][1];
+                coef = p[0];
+                error = p[1][0];
+                int count = coef.length;
+                kappa = new double[count];
+                amplitude = new double[count];
+                rho = new double[count];
+                beta = new double[count];
+                double normLower = 1;
+                for (int i = 0; i < tangential.length; i++) {
+                    normLower *= axes[tangential[i]].normLowerBound(this.size[i]);
+                }
+                double aMax = 0;
+                double yMax = 0;
+                int far = 1 - side;
+                for (int c = 0; c < count; c++) {
+                    int rest = c;
+                    double k2 = 0;
+                    for (int i = tangential.length - 1; i >= 0; i--) {
+                        int j = rest % this.size[i];
+                        rest /= this.size[i];
+                        double m = axes[tangential[i]].mu[j];
+                        k2 += m * m;
+                    }
+                    double kap = Math.sqrt(k2);
+                    kappa[c] = kap;
+                    double y0;
+                    double dy0;
+                    if (kap == 0) {
+                        beta[c] = switch (type[axis][far]) {
+                            case DIRICHLET -> -1 / depth;
+                            case NEUMANN -> 0;
+                            default -> -h[axis][far] / (k + h[axis][far] * depth);
+                        };
+                        y0 = 1;
+                        dy0 = beta[c];
+                    } else {
+                        rho[c] = switch (type[axis][far]) {
+                            case DIRICHLET -> -1;
+                            case NEUMANN -> 1;
+                            default -> (k * kap - h[axis][far]) / (k * kap + h[axis][far]);
+                        };
+                        double e = Math.exp(-2 * kap * depth);
+                        y0 = 1 + rho[c] * e;
+                        dy0 = kap * (-1 + rho[c] * e);
+                    }
+                    double b = switch (type[axis][side]) {
+                        case DIRICHLET -> y0;
+                        case NEUMANN -> -k * dy0;
+                        default -> -k * dy0 + h[axis][side] * y0;
                     };
-                    y0 = 1;
-                    dy0 = beta[c];
-                } else {
-                    rho[c] = switch (type[axis][far]) {
-                        case DIRICHLET -> -1;
-                        case NEUMANN -> 1;
-                        default -> (k * kap - h[axis][far]) / (k * kap + h[axis][far]);
-                    };
-                    double e = Math.exp(-2 * kap * depth);
-                    y0 = 1 + rho[c] * e;
-                    dy0 = kap * (-1 + rho[c] * e);
+                    if (!(Math.abs(b) > 0)) {
+                        throw new OracleException(Reason.UNSUPPORTED, "oracle: face " + SIDES[axis][side].key()
+                            + " has no decaying profile for mode " + c + " (insulated on both sides of it)");
+                    }
+                    double a = 1 / b;
+                    amplitude[c] = a;
+                    aMax = Math.max(aMax, Math.abs(a));
+                    double profile = kap == 0 ? Math.abs(a) * Math.sqrt(depth)
+                        : Math.abs(a) * Math.sqrt(Math.min(2 / kap, 4 * depth));
+                    yMax = Math.max(yMax, profile);
                 }
-                double b = switch (type[axis][side]) {
-                    case DIRICHLET -> y0;
-                    case NEUMANN -> -k * dy0;
-                    default -> -k * dy0 + h[axis][side] * y0;
-                };
-                if (!(Math.abs(b) > 0)) {
-                    throw new OracleException(Reason.UNSUPPORTED, "oracle: face " + SIDES[axis][side].key()
-                        + " has no decaying profile for mode " + c + " (insulated on both sides of it)");
-                }
-                double a = 1 / b;
-                amplitude[c] = a;
-                aMax = Math.max(aMax, Math.abs(a));
-                double profile = kap == 0 ? Math.abs(a) * Math.sqrt(depth) : Math.abs(a) * Math.sqrt(Math.min(2 / kap,
-                    4 * depth));
-                yMax = Math.max(yMax, profile);
+                sup = 2 * aMax * norm / Math.sqrt(normLower);
+                profileNorm = yMax;
             }
-            sup = 2 * aMax * norm / Math.sqrt(normLower);
-            profileNorm = yMax;
+
+            int index(int j0, int j1) {
+                return size.length == 1 ? j0 : j0 * size[1] + j1;
+            }
         }
 
         /** Distance of a point from this face. */
@@ -581,6 +621,8 @@ public final class TensorSolver implements SpatialSolver {
             double[] r = new double[nt];
             int[] m = new int[nt];
             double gradientBudget = budget / lengthScale;
+            Table tb = table;
+            double sup = tb.sup;
             // region i (j_i >= m_i): kappa >= sum_l w_il j_l pi/L_l with sum_l w_il^2 <= 1 (Cauchy-Schwarz)
             double[][] rr = new double[nt][nt];
             for (int i = 0; i < nt; i++) {
@@ -603,9 +645,8 @@ public final class TensorSolver implements SpatialSolver {
                 double target = budget * (1 - r[i]) / (nt * sup * others);
                 m[i] = Math.max(1, (int) Math.ceil(Math.log(target) / Math.log(r[i])));
             }
-            this.regions = rr;
-            double tail = valueTail(r, m);
-            double gTail = grad == null ? 0 : gradientTail(r, m);
+            double tail = valueTail(rr, m, sup);
+            double gTail = grad == null ? 0 : gradientTail(rr, m, sup);
             while (grad != null && gTail > gradientBudget) {
                 for (int i = 0; i < nt; i++) {
                     m[i] += Math.max(1, m[i] / 8);
@@ -613,13 +654,20 @@ public final class TensorSolver implements SpatialSolver {
                 if (m[0] > cap[0] || (nt > 1 && m[1] > cap[1])) {
                     break;
                 }
-                gTail = gradientTail(r, m);
-                tail = valueTail(r, m);
+                gTail = gradientTail(rr, m, sup);
+                tail = valueTail(rr, m, sup);
             }
             for (int i = 0; i < nt; i++) {
                 if (m[i] > cap[i]) {
                     throw tooClose(s);
                 }
+            }
+            tb = table(m);
+            if (tb.sup > sup) {
+                // the finer rule found a larger norm: the tails scale with it
+                tail *= tb.sup / sup;
+                gTail *= tb.sup / sup;
+                sup = tb.sup;
             }
             double value = 0;
             double magnitude = 0;
@@ -645,30 +693,30 @@ public final class TensorSolver implements SpatialSolver {
             for (int c = 0; c < count; c++) {
                 int j0 = nt == 1 ? c : c / m[1];
                 int j1 = nt == 1 ? 0 : c % m[1];
-                int index = nt == 1 ? j0 : j0 * cap[1] + j1;
-                double kap = kappa[index];
+                int index = tb.index(j0, j1);
+                double kap = tb.kappa[index];
                 double y;
                 double dy;
                 if (kap == 0) {
-                    y = 1 + beta[index] * s;
-                    dy = beta[index];
+                    y = 1 + tb.beta[index] * s;
+                    dy = tb.beta[index];
                 } else {
                     double e1 = Math.exp(-kap * s);
-                    double e2 = rho[index] == 0 ? 0 : rho[index] * Math.exp(-kap * (2 * depth - s));
+                    double e2 = tb.rho[index] == 0 ? 0 : tb.rho[index] * Math.exp(-kap * (2 * depth - s));
                     y = e1 + e2;
                     dy = kap * (-e1 + e2);
                 }
-                double ga = coef[index] * amplitude[index];
+                double ga = tb.coef[index] * tb.amplitude[index];
                 double x0 = xs[0][j0];
                 double x1 = nt == 1 ? 1 : xs[1][j1];
                 double term = ga * x0 * x1 * y;
                 value += term;
                 magnitude += Math.abs(term);
-                profileSum += Math.abs(amplitude[index] * y);
+                profileSum += Math.abs(tb.amplitude[index] * y);
                 if (grad != null) {
                     double tangentialMu = axes[tangential[0]].mu[j0] + (nt > 1 ? axes[tangential[1]].mu[j1] : 0);
                     double slope = Math.abs(dy) + Math.abs(y) * tangentialMu;
-                    gradientProfile += Math.abs(amplitude[index]) * slope;
+                    gradientProfile += Math.abs(tb.amplitude[index]) * slope;
                     gradientMagnitude += Math.abs(ga) * slope;
                     gsum[axis] += ga * x0 * x1 * dy * dSign;
                     gsum[tangential[0]] += ga * dxs[0][j0] * x1 * y;
@@ -682,15 +730,12 @@ public final class TensorSolver implements SpatialSolver {
                     grad[i] += gsum[i];
                 }
             }
-            bounds[0] = tail + error * profileSum + 16 * EPS * magnitude;
-            bounds[1] = gTail + error * gradientProfile + 16 * EPS * gradientMagnitude;
+            bounds[0] = tail + tb.error * profileSum + 16 * EPS * magnitude;
+            bounds[1] = gTail + tb.error * gradientProfile + 16 * EPS * gradientMagnitude;
             return value;
         }
 
-        private double[][] regions;
-
-        private double valueTail(double[] r, int[] m) {
-            double[][] rr = regions;
+        private double valueTail(double[][] rr, int[] m, double sup) {
             double total = 0;
             for (int i = 0; i < rr.length; i++) {
                 double product = 1;
@@ -703,8 +748,7 @@ public final class TensorSolver implements SpatialSolver {
         }
 
         /** Tail of sup * 2 sum_i (j_i + 1) pi/L_i r^j over the complement (|grad| <= kappa + sum mu). */
-        private double gradientTail(double[] r, int[] m) {
-            double[][] rr = regions;
+        private double gradientTail(double[][] rr, int[] m, double sup) {
             int nt = rr.length;
             double total = 0;
             for (int cut = 0; cut < nt; cut++) {
@@ -749,7 +793,7 @@ public final class TensorSolver implements SpatialSolver {
         if (sourceAxis < 0 || sourceAxis == axis || type[axis][side] == NEUMANN) {
             return 0;
         }
-        double p = sourceOracle.temperature(point[sourceAxis], 0).value();
+        double p = sourceSlice.temperature(point[sourceAxis]).value();
         return type[axis][side] == ROBIN ? h[axis][side] * p : p;
     }
 
@@ -803,10 +847,14 @@ public final class TensorSolver implements SpatialSolver {
                 double weightMax = 0;
                 int[] index = new int[d];
                 AxisModes normal = axes[f.axis];
+                int[] tangentialSize = new int[f.tangential.length];
+                for (int i = 0; i < tangentialSize.length; i++) {
+                    tangentialSize[i] = m[f.tangential[i]];
+                }
+                Face.Table tb = f.table(tangentialSize);
                 for (int cIndex = 0; cIndex < count; cIndex++) {
                     unflatten(cIndex, m, index);
-                    int faceIndex = f.tangential.length == 1 ? index[f.tangential[0]]
-                        : index[f.tangential[0]] * f.cap[1] + index[f.tangential[1]];
+                    int faceIndex = tb.index(index[f.tangential[0]], f.tangential.length == 1 ? 0 : index[f.tangential[1]]);
                     int p = index[f.axis];
                     double nu = normal.mu[p];
                     double z0;
@@ -819,14 +867,14 @@ public final class TensorSolver implements SpatialSolver {
                         z0 = Math.sin(arg);
                         dz0 = -nu * Math.cos(arg);
                     }
-                    double kap = f.kappa[faceIndex];
+                    double kap = tb.kappa[faceIndex];
                     double y0;
                     double dy0;
                     if (kap == 0) {
                         y0 = 1;
-                        dy0 = f.beta[faceIndex];
+                        dy0 = tb.beta[faceIndex];
                     } else {
-                        double e = f.rho[faceIndex] * Math.exp(-2 * kap * f.depth);
+                        double e = tb.rho[faceIndex] * Math.exp(-2 * kap * f.depth);
                         y0 = 1 + e;
                         dy0 = kap * (-1 + e);
                     }
@@ -837,12 +885,12 @@ public final class TensorSolver implements SpatialSolver {
                     } else {
                         inner = (y0 * dz0 - dy0 * z0) / denominator;
                     }
-                    double w = f.amplitude[faceIndex] * inner / normal.norm[p];
-                    c[cIndex] -= f.coef[faceIndex] * w;
+                    double w = tb.amplitude[faceIndex] * inner / normal.norm[p];
+                    c[cIndex] -= tb.coef[faceIndex] * w;
                     weightMax = Math.max(weightMax, Math.abs(w));
                 }
-                err += f.error * weightMax;
-                uNorm += f.norm * f.profileNorm;
+                err += tb.error * weightMax;
+                uNorm += tb.norm * tb.profileNorm;
             }
             error = err;
             double normLower = 1;
@@ -871,14 +919,14 @@ public final class TensorSolver implements SpatialSolver {
     /** Q_j/(rho c ... ) projections of the source along its axis: {coefficients, {error, ||P|| in the body}}. */
     private double[][] projectSource(int m) {
         int a = sourceAxis;
-        Expression q = sourceOracle.problem().source();
+        Expression q = sourceAlong;
         double[][] p = project(point -> q.value(point[a], 0), new int[] {a}, new int[] {m}, new double[d]);
         // ||P|| over the body: the slab values on a Gauss rule, times the other edges' lengths
         double[][] r = rule(64, len[a]);
         double sum = 0;
         for (int i = 0; i < 64; i++) {
-            double v = Math.abs(sourceOracle.temperature(r[0][i], 0).value())
-                + sourceOracle.temperature(r[0][i], 0).bound();
+            Evaluation e = sourceSlice.temperature(r[0][i]);
+            double v = Math.abs(e.value()) + e.bound();
             sum += r[1][i] * v * v;
         }
         double others = 1;
@@ -1070,7 +1118,7 @@ public final class TensorSolver implements SpatialSolver {
             double bound = timeVariation;
             double[] bounds = new double[2];
             if (sourceAxis >= 0) {
-                Evaluation e = sourceOracle.temperature(p[o + sourceAxis], 0);
+                Evaluation e = sourceSlice.temperature(p[o + sourceAxis]);
                 value += e.value();
                 bound += e.bound();
             }
@@ -1100,7 +1148,7 @@ public final class TensorSolver implements SpatialSolver {
             double bound = timeVariation / minLength();
             double[] bounds = new double[2];
             if (sourceAxis >= 0) {
-                Evaluation flux = sourceOracle.heatFlux(p[o + sourceAxis], 0);
+                Evaluation flux = sourceSlice.heatFlux(p[o + sourceAxis]);
                 g[sourceAxis] += -flux.value() / k;
                 bound += flux.bound() / k;
             }

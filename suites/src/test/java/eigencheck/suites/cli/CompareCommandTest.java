@@ -223,6 +223,38 @@ class CompareCommandTest {
     }
 
     @Test
+    void cylinderAndRectangleOutputsAreReadInTheirOwnCoordinates() throws IOException {
+        // steady cylinder, uniform source, fixed surface: u = 10 + Q (R^2 - r^2)/(4k) (common practice),
+        // read at the distance from the z axis of 3D points; and NAFEMS T4 (TNSB Rev. 3, 1990) at the
+        // target point 0.6, 0.2 with 18.254 written for the converged 18.2537565
+        Path cylinder = dir.resolve("cylinder.yaml");
+        Files.writeString(cylinder, """
+            domain: {shape: cylinder, radius: 0.1}
+            material: {conductivity: 2, volumetricHeatCapacity: 1e6}
+            steady: true
+            source: "8000"
+            boundary: {surface: {dirichlet: "10"}}
+            """);
+        StringBuilder csv = new StringBuilder("x,y,z,T\n");
+        for (int i = 0; i <= 4; i++) {
+            double r = 0.025 * i;
+            double u = 10 + 8000 * (0.01 - r * r) / 8 + (i == 3 ? 2e-3 : 0);
+            csv.append(0.6 * r).append(',').append(0.8 * r).append(',').append(5.0 * i).append(',').append(u).append('\n');
+        }
+        Path out = dir.resolve("cyl.csv");
+        Files.writeString(out, csv);
+        CliRun r = CliRun.of("compare", cylinder.toString(), out.toString(), "--json", "--time", "0");
+        assertEquals(0, r.code(), r.err());
+        assertEquals(2e-3, new ObjectMapper().readTree(r.out()).get("max").asDouble(), 1e-9);
+        Path t4 = Path.of("..", "reference-data", "problems", "nafems-t4.yaml");
+        Path plate = dir.resolve("plate.csv");
+        Files.writeString(plate, "x,y,T\n0.6,0.2,18.254\n0.0,0.0,100\n");
+        CliRun p = CliRun.of("compare", t4.toString(), plate.toString(), "--json", "--time", "0");
+        assertEquals(0, p.code(), p.err());
+        assertEquals(18.254 - 18.2537565371, new ObjectMapper().readTree(p.out()).get("max").asDouble(), 1e-8);
+    }
+
+    @Test
     void pointsWithoutCellsGiveNodalNormsOnlyAndBadOutputsAreNamed() throws IOException {
         Path csv = dir.resolve("nodes.csv");
         Files.writeString(csv, "x,T\n0,0\n500,0.26\n1000,0\n");
