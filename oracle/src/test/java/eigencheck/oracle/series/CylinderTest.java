@@ -88,6 +88,40 @@ class CylinderTest {
     }
 
     @Test
+    void uniformInitialCoolingAgreesWithTheHandbookSeries() {
+        // Incropera et al. 2007, eq. 5.49a (the infinite cylinder, recalled from memory):
+        // u/u_0 = sum C_n exp(-z_n^2 Fo) J0(z_n r/R), C_n = 2 J1(z_n)/(z_n (J0^2(z_n) + J1^2(z_n))), z_n J1 = Bi J0;
+        // summed here with Commons Math's BesselJ and Brent roots on the brackets (j_{1,n-1}, j_{0,n})
+        double biot = 3;
+        org.apache.commons.math3.analysis.solvers.BrentSolver brent =
+            new org.apache.commons.math3.analysis.solvers.BrentSolver(1e-15, 1e-16);
+        int terms = 300;
+        double[] z = new double[terms];
+        double[] c = new double[terms];
+        for (int n = 0; n < terms; n++) {
+            double lo = n == 0 ? 1e-9 : RadialModes.besselZero(1, n);
+            double hi = RadialModes.besselZero(0, n + 1);
+            z[n] = brent.solve(1000, x -> x * BesselJ.value(1, x) - biot * BesselJ.value(0, x), lo, hi);
+            double j0 = BesselJ.value(0, z[n]);
+            double j1 = BesselJ.value(1, z[n]);
+            c[n] = 2 * j1 / (z[n] * (j0 * j0 + j1 * j1));
+        }
+        Problem p = cylinder(1, Material.ofDiffusivity(1), "1", "0",
+            new BoundaryCondition.Robin(biot, Expression.parse("0", "t")));
+        Oracle o = Oracle.prepare(p, 1, 1e-11);
+        SplittableRandom random = new SplittableRandom(9);
+        for (int i = 0; i < 100; i++) {
+            double r = random.nextDouble();
+            double fo = 0.01 + random.nextDouble();
+            double sum = 0;
+            for (int n = 0; n < terms; n++) {
+                sum += c[n] * Math.exp(-z[n] * z[n] * fo) * BesselJ.value(0, z[n] * r);
+            }
+            assertWithin(sum, o.temperature(r, fo), 1e-11, "u at r = " + r + ", Fo = " + fo);
+        }
+    }
+
+    @Test
     void fluxSurfaceHeatsTheMeanLinearly() {
         // insulated-except-flux cylinder from u = 0: the mean rises at 2 q/(R rho c) (energy balance, common
         // practice), and the long-time profile is q r^2/(2 k R) plus a constant (Carslaw and Jaeger 1959, 7.4)
