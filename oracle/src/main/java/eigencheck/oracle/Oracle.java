@@ -323,14 +323,33 @@ public final class Oracle {
         return slab.at(t).heatFlux(x);
     }
 
-    /** Exact mean of u over [x0, x1]. @throws OracleException if not certified */
+    /**
+     * Exact mean of u over the axis-aligned cell from the corner {@code lo} to {@code hi} (rectangle,
+     * box), or the shell lo[0] < r < hi[0] (cylinder, sphere; weight r or r^2), or [lo, hi] (slab).
+     * Cells that touch a face with data are refused in the rectangle and box.
+     *
+     * @throws OracleException if not certified
+     */
+    public Evaluation cellAverage(double[] lo, double[] hi, double t) {
+        requireDimension(lo);
+        requireDimension(hi);
+        if (spatial == null || spatial.dimension() == 1) {
+            return cellAverage(lo[0], hi[0], t);
+        }
+        return spatial.at(t).average(lo, hi);
+    }
+
+    /** Exact mean of u over [x0, x1] (for a cylinder or sphere the shell x0 < r < x1). @throws OracleException if not certified */
     public Evaluation cellAverage(double x0, double x1, double t) {
         if (sphere) {
             return SphereMapping.shellAverage(slab.at(t), x0, x1, tolerance * temperatureScale());
         }
         if (spatial != null) {
-            throw new OracleException(OracleException.Reason.UNSUPPORTED, "oracle: cell averages of " + problem.domain()
-                + " are not in this version; values and gradients are");
+            if (spatial.dimension() != 1) {
+                throw new OracleException(OracleException.Reason.UNSUPPORTED, "oracle: the cell of " + problem.domain()
+                    + " has " + spatial.dimension() + " coordinates; use cellAverage(lo, hi, t)");
+            }
+            return spatial.at(t).average(new double[] {x0}, new double[] {x1});
         }
         requireSlab("cell average");
         return slab.at(t).cellAverage(x0, x1);

@@ -36,5 +36,11 @@ public interface SpatialSolver {
          * component.
          */
         double gradient(double[] p, int offset, double[] out, int outOffset);
+
+        /**
+         * The exact mean of u over the axis-aligned cell from {@code lo} to {@code hi} (rectangle, box),
+         * or over the shell lo[0] < r < hi[0] (cylinder, weight r), with its bound.
+         */
+        Evaluation average(double[] lo, double[] hi);
     }
 }

@@ -616,7 +616,17 @@ public final class TensorSolver implements SpatialSolver {
          * {value bound, gradient bound} in {@code bounds}.
          */
         double add(double[] p, int o, double budget, double[] grad, double[] bounds) {
-            double s = Math.max(0, distance(p, o));
+            return add(p, o, null, budget, grad, bounds);
+        }
+
+        /**
+         * As {@link #add(double[], int, double, double[], double[])}, or with {@code hi} not null the
+         * mean over the cell from the corner p to hi (no gradient): the modes' means in closed form,
+         * the tail as at the cell's nearest point to the face.
+         */
+        double add(double[] p, int o, double[] hi, double budget, double[] grad, double[] bounds) {
+            double s = Math.max(0, hi == null ? distance(p, o) : side == 0 ? p[o + axis] : len[axis] - hi[axis]);
+            double thickness = hi == null ? 0 : hi[axis] - p[o + axis];
             int nt = tangential.length;
             double[] r = new double[nt];
             int[] m = new int[nt];
@@ -685,7 +695,7 @@ public final class TensorSolver implements SpatialSolver {
                 dxs[i] = new double[m[i]];
                 for (int j = 0; j < m[i]; j++) {
                     double arg = ax.mu[j] * x + ax.phase[j];
-                    xs[i][j] = Math.sin(arg);
+                    xs[i][j] = hi == null ? Math.sin(arg) : meanOfMode(ax.mu[j], ax.phase[j], x, hi[tangential[i]]);
                     dxs[i][j] = ax.mu[j] * Math.cos(arg);
                 }
             }
@@ -698,8 +708,15 @@ public final class TensorSolver implements SpatialSolver {
                 double y;
                 double dy;
                 if (kap == 0) {
-                    y = 1 + tb.beta[index] * s;
+                    y = 1 + tb.beta[index] * (s + 0.5 * thickness);
                     dy = tb.beta[index];
+                } else if (thickness > 0) {
+                    // mean of exp(-kappa s') + rho exp(-kappa (2D - s')) over [s, s + thickness]
+                    double e1 = Math.exp(-kap * s) * -Math.expm1(-kap * thickness);
+                    double e2 = tb.rho[index] == 0 ? 0
+                        : tb.rho[index] * Math.exp(-kap * (2 * depth - s - thickness)) * -Math.expm1(-kap * thickness);
+                    y = (e1 + e2) / (kap * thickness);
+                    dy = 0;
                 } else {
                     double e1 = Math.exp(-kap * s);
                     double e2 = tb.rho[index] == 0 ? 0 : tb.rho[index] * Math.exp(-kap * (2 * depth - s));
@@ -772,6 +789,20 @@ public final class TensorSolver implements SpatialSolver {
                 + " that face's series would need more than " + cap[0] + " modes per direction there. Points this close"
                 + " to such a face are not certified in this version (on a Dirichlet face itself u is the data)");
         }
+    }
+
+    /** The mean of sin(mu x + phase) over [a, b] (the value at a when b = a). */
+    static double meanOfMode(double mu, double phase, double a, double b) {
+        double w = b - a;
+        if (mu == 0) {
+            return Math.sin(phase);
+        }
+        double half = 0.5 * mu * w;
+        if (half < 1e-8) {
+            return Math.sin(mu * (a + 0.5 * w) + phase);
+        }
+        // (cos(mu a + phase) - cos(mu b + phase))/(mu w) = sin(mu (a+b)/2 + phase) sin(half)/half
+        return Math.sin(mu * (a + 0.5 * w) + phase) * Math.sin(half) / half;
     }
 
     /** sum_{j >= m} (j + 1) r^j = r^m ((m + 1)/(1 - r) + r/(1 - r)^2). */
@@ -1168,8 +1199,50 @@ public final class TensorSolver implements SpatialSolver {
             return bound;
         }
 
+        @Override
+        public Evaluation average(double[] lo, double[] hi) {
+            checkPoint(lo, 0);
+            checkPoint(hi, 0);
+            for (int i = 0; i < d; i++) {
+                if (!(hi[i] > lo[i])) {
+                    throw new OracleException(Reason.OUTSIDE_DOMAIN, "oracle: the cell's " + NAMES[i] + " range ["
+                        + lo[i] + ", " + hi[i] + "] m is empty; give lo < hi along every axis");
+                }
+            }
+            if (t == 0) {
+                throw new OracleException(Reason.UNSUPPORTED, "oracle: the cell average at t = 0 is that of the"
+                    + " initial temperature; ask for t > 0");
+            }
+            double value = 0;
+            double bound = timeVariation;
+            double[] bounds = new double[2];
+            if (sourceAxis >= 0) {
+                Evaluation e = sourceSlice.cellAverage(lo[sourceAxis], hi[sourceAxis]);
+                value += e.value();
+                bound += e.bound();
+            }
+            for (Face f : faces) {
+                value += f.add(lo, 0, hi, budget / (4 * faces.size()), null, bounds);
+                bound += bounds[0];
+            }
+            if (weighted != null) {
+                double[] vb = modalSum(lo, 0, hi, null);
+                value += vb[0];
+                bound += vb[1] + modalBound;
+            }
+            if (!(bound <= budget)) {
+                throw notCertified("the cell mean", lo, 0, bound, budget);
+            }
+            return new Evaluation(value, bound);
+        }
+
         /** {value, value rounding bound, gradient rounding bound}; adds the gradient into g if not null. */
         private double[] modalSum(double[] p, int o, double[] g) {
+            return modalSum(p, o, null, g);
+        }
+
+        /** As above, or with {@code hi} not null the mean over the cell from p to hi. */
+        private double[] modalSum(double[] p, int o, double[] hi, double[] g) {
             double[][] xs = new double[d][];
             double[][] dxs = g == null ? null : new double[d][];
             for (int i = 0; i < d; i++) {
@@ -1181,7 +1254,7 @@ public final class TensorSolver implements SpatialSolver {
                 double x = p[o + i];
                 for (int j = 0; j < m[i]; j++) {
                     double arg = ax.mu[j] * x + ax.phase[j];
-                    xs[i][j] = Math.sin(arg);
+                    xs[i][j] = hi == null ? Math.sin(arg) : meanOfMode(ax.mu[j], ax.phase[j], x, hi[i]);
                     if (g != null) {
                         dxs[i][j] = ax.mu[j] * Math.cos(arg);
                     }

@@ -65,6 +65,10 @@ class CylinderTest {
             assertWithin(-q * r / (2 * k), o.gradient(new double[] {r}, t)[0], 1e-10 * o.temperatureScale() / radius,
                 "du/dr at r = " + r);
         }
+        for (double[] shell : new double[][] {{0, 0.01}, {0.02, 0.035}, {0.045, 0.05}}) {
+            double mean = 60 + q / (4 * k) * (radius * radius - 0.5 * (shell[0] * shell[0] + shell[1] * shell[1]));
+            assertWithin(mean, o.cellAverage(shell[0], shell[1], t), 1e-10 * o.temperatureScale(), "shell mean");
+        }
         Problem steady = new Problem(new Cylinder(radius), m, Expression.parse("0", "r"),
             Expression.parse(Double.toString(q), "r", "t"), Map.of(Side.SURFACE,
             new BoundaryCondition.Dirichlet(Expression.parse("60", "t"))), true);

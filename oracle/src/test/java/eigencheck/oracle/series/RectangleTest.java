@@ -146,6 +146,27 @@ class RectangleTest {
             assertWithin(exact.value(x, y, t), o.temperature(new double[] {x, y}, t), 1e-10 * o.temperatureScale(),
                 "u at " + x + ", " + y + ", " + t);
         }
+        // exact cell means against a 20 x 20 Gauss-Legendre rule on the closed form (smooth: machine precision)
+        org.apache.commons.math3.analysis.integration.gauss.GaussIntegrator rule =
+            new org.apache.commons.math3.analysis.integration.gauss.GaussIntegratorFactory().legendre(20, 0, 1);
+        for (int i = 0; i < 40; i++) {
+            double x0 = 0.02 + 0.9 * random.nextDouble();
+            double y0 = (0.02 + 0.9 * random.nextDouble()) * ly;
+            double hx = 0.06 * random.nextDouble() + 1e-3;
+            double hy = 0.06 * random.nextDouble() * ly + 1e-3;
+            double t = 0.01 + random.nextDouble();
+            double mean = 0;
+            for (int a = 0; a < 20; a++) {
+                for (int b = 0; b < 20; b++) {
+                    mean += rule.getWeight(a) * rule.getWeight(b)
+                        * exact.value(x0 + hx * rule.getPoint(a), y0 + hy * rule.getPoint(b), t);
+                }
+            }
+            assertWithin(mean, o.cellAverage(new double[] {x0, y0}, new double[] {x0 + hx, y0 + hy}, t),
+                1e-10 * o.temperatureScale(), "cell mean at " + x0 + ", " + y0);
+        }
+        assertThrows(OracleException.class, () -> o.cellAverage(new double[] {0, 0.1}, new double[] {0.1, 0.2}, 1),
+            "a cell touching a face with data is refused");
     }
 
     @Test

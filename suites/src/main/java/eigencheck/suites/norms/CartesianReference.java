@@ -15,6 +15,13 @@ public final class CartesianReference implements Reference {
         this.time = time;
     }
 
+    /** The oracle's exact cell mean over the box's first two or three coordinates. */
+    @Override
+    public double boxAverage(double[] lo, double[] hi) {
+        int d = oracle.dimension();
+        return oracle.cellAverage(java.util.Arrays.copyOf(lo, d), java.util.Arrays.copyOf(hi, d), time).value();
+    }
+
     @Override
     public void evaluate(double[] xyz, double[] value, double[] gradient) {
         int n = xyz.length / 3;

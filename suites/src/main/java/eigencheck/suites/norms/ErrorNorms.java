@@ -208,6 +208,16 @@ public final class ErrorNorms {
                 return Math.sqrt(length);
             }
         }
+        if (top >= 2) {
+            double[] box = axisAlignedBox(cells, c, xyz, top);
+            if (box != null) {
+                double exact = reference.boxAverage(java.util.Arrays.copyOf(box, 3), java.util.Arrays.copyOfRange(box, 3, 6));
+                if (!Double.isNaN(exact)) {
+                    out[0] = exact;
+                    return box[6];
+                }
+            }
+        }
         Elements.Rule rule = Elements.rule(type);
         double[] n = new double[count];
         double[] g = new double[count * top];
@@ -238,6 +248,46 @@ public final class ErrorNorms {
         }
         out[0] = integral / measure;
         return measure;
+    }
+
+    /**
+     * {lo x, y, z, hi x, y, z, measure} of a quadrilateral (top 2, in a plane z = const) or hexahedral
+     * cell (top 3) whose corners are exactly those of an axis-aligned box, else null.
+     */
+    private static double[] axisAlignedBox(Cells cells, int c, double[] xyz, int top) {
+        int corners = top == 2 ? 4 : 8;
+        if (cells.nodeCount(c) < corners) {
+            return null;
+        }
+        double[] lo = {Double.POSITIVE_INFINITY, Double.POSITIVE_INFINITY, Double.POSITIVE_INFINITY};
+        double[] hi = {Double.NEGATIVE_INFINITY, Double.NEGATIVE_INFINITY, Double.NEGATIVE_INFINITY};
+        for (int i = 0; i < corners; i++) {
+            int node = cells.node(c, i);
+            for (int d = 0; d < 3; d++) {
+                lo[d] = Math.min(lo[d], xyz[3 * node + d]);
+                hi[d] = Math.max(hi[d], xyz[3 * node + d]);
+            }
+        }
+        for (int i = 0; i < corners; i++) {
+            int node = cells.node(c, i);
+            for (int d = 0; d < top; d++) {
+                double v = xyz[3 * node + d];
+                if (v != lo[d] && v != hi[d]) {
+                    return null;
+                }
+            }
+            if (top == 2 && xyz[3 * node + 2] != lo[2]) {
+                return null;
+            }
+        }
+        double measure = 1;
+        for (int d = 0; d < top; d++) {
+            if (!(hi[d] > lo[d])) {
+                return null;
+            }
+            measure *= hi[d] - lo[d];
+        }
+        return new double[] {lo[0], lo[1], lo[2], hi[0], hi[1], hi[2], measure};
     }
 
     /** The exact segment average when the segment lies along the reference's axis. */

@@ -27,6 +27,14 @@ public interface Reference {
         return -1;
     }
 
+    /**
+     * Exact mean over the axis-aligned box from lo to hi (3 coordinates each; a 2D output's z range is
+     * empty), or NaN if the reference has none.
+     */
+    default double boxAverage(double[] lo, double[] hi) {
+        return Double.NaN;
+    }
+
     /** Exact mean over the segment [a, b] along {@link #axis()}, or NaN if the reference has none. */
     default double segmentAverage(double a, double b) {
         return Double.NaN;

@@ -157,6 +157,58 @@ class CompareCommandTest {
     }
 
     @Test
+    void quadCellDataOfARectangleAreComparedWithExactBoxMeans() throws IOException {
+        // steady rectangle, -lap u = 2 with u = 0 at x = 0, 1 and insulated y sides: u = x (1 - x);
+        // the mean over [a, b] x [c, d] is that of x (1 - x) over [a, b] (calculus)
+        Path rect = dir.resolve("rect.yaml");
+        Files.writeString(rect, """
+            domain: {shape: rectangle, lengthX: 1, lengthY: 0.5}
+            material: {diffusivity: 1}
+            steady: true
+            source: "2"
+            boundary:
+              xmin: {dirichlet: "0"}
+              xmax: {dirichlet: "0"}
+              ymin: {neumann: "0"}
+              ymax: {neumann: "0"}
+            """);
+        int nx = 4;
+        int ny = 2;
+        StringBuilder pts = new StringBuilder();
+        for (int j = 0; j <= ny; j++) {
+            for (int i = 0; i <= nx; i++) {
+                pts.append(pts.length() == 0 ? "" : ",").append('[').append((double) i / nx).append(',')
+                    .append(0.5 * j / ny).append(']');
+            }
+        }
+        StringBuilder conn = new StringBuilder();
+        StringBuilder types = new StringBuilder();
+        StringBuilder values = new StringBuilder();
+        double planted = 2e-3;
+        for (int j = 0; j < ny; j++) {
+            for (int i = 0; i < nx; i++) {
+                int a = j * (nx + 1) + i;
+                conn.append(conn.length() == 0 ? "" : ",").append('[').append(a).append(',').append(a + 1).append(',')
+                    .append(a + nx + 2).append(',').append(a + nx + 1).append(']');
+                types.append(types.length() == 0 ? "" : ",").append(9);
+                double x0 = (double) i / nx;
+                double x1 = (double) (i + 1) / nx;
+                double mean = ((x1 * x1 - x0 * x0) / 2 - (x1 * x1 * x1 - x0 * x0 * x0) / 3) / (x1 - x0);
+                values.append(values.length() == 0 ? "" : ",").append(mean + (i == 1 && j == 1 ? planted : 0));
+            }
+        }
+        Path out = dir.resolve("quads.json");
+        Files.writeString(out, "{\"points\": [" + pts + "], \"cells\": {\"types\": [" + types
+            + "], \"connectivity\": [" + conn + "]}, \"cellData\": {\"T\": [" + values + "]}}");
+        CliRun r = CliRun.of("compare", rect.toString(), out.toString(), "--json", "--time", "0");
+        assertEquals(0, r.code(), r.err());
+        JsonNode j = new ObjectMapper().readTree(r.out());
+        assertEquals(planted, j.get("max").asDouble(), 1e-12);
+        // one planted cell of area 1/16 in a body of area 1/2: L2 = planted * sqrt(1/16)
+        assertEquals(planted * 0.25, j.get("l2").asDouble(), 1e-12);
+    }
+
+    @Test
     void cellDataAreComparedWithExactCellAverages() throws IOException {
         // mean of x(1-x) over [a, b]: (b^2 - a^2)/2 - (b^3 - a^3)/3, divided by (b - a) (calculus)
         int n = 5;
