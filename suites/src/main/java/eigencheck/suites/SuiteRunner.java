@@ -100,7 +100,7 @@ public final class SuiteRunner {
             }
         }
         String problem = c.problem() != null ? summary(c.problem())
-            : "manufactured solution u(x, y, t) = " + c.manufactured().source() + " (the reference is u itself)";
+            : "manufactured solution u = " + c.manufactured().source() + " (the reference is u itself)";
         List<String> notes = notes(c);
         String rule = rules(c);
         if (!errors.isEmpty()) {
@@ -495,6 +495,16 @@ public final class SuiteRunner {
         StringBuilder b = new StringBuilder();
         if (p.domain() instanceof Slab s) {
             b.append("slab L = ").append(fmt(s.length())).append(" m");
+        } else if (p.domain().lengths().length > 1) {
+            double[] l = p.domain().lengths();
+            b.append(l.length == 2 ? "rectangle " : "box ");
+            for (int i = 0; i < l.length; i++) {
+                b.append(i == 0 ? "" : " x ").append(fmt(l[i]));
+            }
+            b.append(" m");
+        } else {
+            b.append(p.domain() instanceof eigencheck.oracle.problem.Cylinder ? "cylinder" : "sphere").append(" R = ")
+                .append(fmt(p.domain().characteristicLength())).append(" m");
         }
         b.append(String.format(Locale.ROOT, ", k = %s W/(m K), rho c = %s J/(m^3 K) (alpha = %.4g m^2/s)",
             fmt(p.material().conductivity()), fmt(p.material().volumetricHeatCapacity()), p.material().diffusivity()));

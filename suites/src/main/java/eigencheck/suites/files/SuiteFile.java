@@ -164,8 +164,9 @@ public final class SuiteFile {
         }
         c.allowOnly(o, List.of("solution", "domain", "material", "boundary"));
         Node sol = c.required(o, "solution", "the manufactured solution u(x, t), an expression");
-        boolean planar = o.fields().get("domain") instanceof Node.Obj d0 && d0.fields().get("shape") instanceof Node.Scalar s0
-            && "rectangle".equals(s0.value());
+        String shapeName = o.fields().get("domain") instanceof Node.Obj d0 && d0.fields().get("shape") instanceof Node.Scalar s0
+            && s0.value() instanceof String text ? text : "slab";
+        boolean planar = shapeName.equals("rectangle") || shapeName.equals("box");
         eigencheck.oracle.expr.Expression u = sol == null ? null : planar ? eigencheck.oracle.expr.Expression.parse("0")
             : c.expression(sol, new String[] {"x", "t"}, "u is an expression of x and t");
         Node domain = c.required(o, "domain", "for example {shape: slab, length: 1} or {shape: rectangle, lengthX: 1,"
@@ -174,22 +175,31 @@ public final class SuiteFile {
         if (u == null || domain == null || material == null) {
             return null;
         }
-        if (domain instanceof Node.Obj d && d.fields().get("shape") instanceof Node.Scalar sh
-            && "rectangle".equals(sh.value())) {
-            // u(x, y, t) on a rectangle: the expression is the reference; the solver encodes the data
-            c.allowOnly(d, List.of("shape", "lengthX", "lengthY"));
-            Node lx = c.required(d, "lengthX", "the width in x, m");
-            Node ly = c.required(d, "lengthY", "the height in y, m");
-            double wx = lx == null ? Double.NaN : c.positive(lx, "m");
-            double wy = ly == null ? Double.NaN : c.positive(ly, "m");
-            eigencheck.oracle.expr.Expression surface = c.expression(sol, new String[] {"x", "y", "t"},
-                "u is an expression of x, y and t");
-            if (o.fields().containsKey("boundary")) {
-                c.problem(Cause.UNKNOWN_FIELD, o.keys().get("boundary"), "a rectangle's manufactured data are the"
-                    + " solver's; leave boundary out (the reference is the solution itself)");
+        if (planar) {
+            // u(x, y[, z], t): the expression is the reference; with boundary kinds the source and side data are
+            // derived for the solver (the {problem} placeholder), without them the solver encodes its own data
+            boolean box = shapeName.equals("box");
+            String[] vars = box ? new String[] {"x", "y", "z", "t"} : new String[] {"x", "y", "t"};
+            List<String> sideNames = box ? List.of("xmin", "xmax", "ymin", "ymax", "zmin", "zmax")
+                : List.of("xmin", "xmax", "ymin", "ymax");
+            eigencheck.oracle.expr.Expression surface = c.expression(sol, vars, "u is an expression of "
+                + String.join(", ", vars));
+            Problem carrier = carrier(c, o, domain, material, sideNames);
+            if (carrier == null || surface == null) {
+                return null;
             }
-            return Double.isNaN(wx) || Double.isNaN(wy) || surface == null ? null
-                : new Object[] {null, surface, new double[] {wx, wy}};
+            double[] lengths = carrier.domain().lengths();
+            if (!o.fields().containsKey("boundary")) {
+                return new Object[] {null, surface, lengths};
+            }
+            Map<eigencheck.oracle.problem.Side, eigencheck.oracle.problem.Manufactured.Face> kinds =
+                faceKinds(c, o.fields().get("boundary"), sideNames);
+            if (kinds == null) {
+                return null;
+            }
+            Problem derived = eigencheck.oracle.problem.Manufactured.cartesian(surface, carrier.domain(),
+                carrier.material(), kinds);
+            return new Object[] {derived, surface, lengths};
         }
         Node boundary = c.required(o, "boundary", "the kind of each face: {xmin: dirichlet, xmax: {robin: 25}}");
         if (boundary == null) {
@@ -244,6 +254,66 @@ public final class SuiteFile {
         Problem derived = eigencheck.oracle.problem.Manufactured.slab(u, (Slab) carrier.domain(), carrier.material(),
             kinds[0], kinds[1]);
         return new Object[] {derived, u, new double[] {((Slab) carrier.domain()).length()}};
+    }
+
+    /** The domain and material of a manufactured case, read through the problem-file checks. */
+    private static Problem carrier(Checker c, Node.Obj o, Node domain, Node material, List<String> sideNames) {
+        Map<String, Node> fields = new LinkedHashMap<>();
+        fields.put("domain", domain);
+        fields.put("material", material);
+        fields.put("initial", new Node.Scalar(o.location(), "0", false));
+        Map<String, Node> faces = new LinkedHashMap<>();
+        Map<String, InputLocation> faceKeys = new LinkedHashMap<>();
+        Node zero = new Node.Obj(o.location(), Map.of("dirichlet", new Node.Scalar(o.location(), "0", false)),
+            Map.of("dirichlet", o.location()));
+        for (String side : sideNames) {
+            faces.put(side, zero);
+            faceKeys.put(side, o.location());
+        }
+        fields.put("boundary", new Node.Obj(o.location(), faces, faceKeys));
+        try {
+            return ProblemFile.fromTree(new Node.Obj(o.location(), fields, Map.of()));
+        } catch (InputException e) {
+            for (InputException.Problem q : e.problems()) {
+                c.problem(q.cause(), q.location(), q.message());
+            }
+            return null;
+        }
+    }
+
+    /** {side: dirichlet | neumann | {robin: h}} for every side, or null after reporting. */
+    private static Map<eigencheck.oracle.problem.Side, eigencheck.oracle.problem.Manufactured.Face> faceKinds(
+            Checker c, Node boundary, List<String> sideNames) {
+        Node.Obj b = c.object(boundary, "{xmin: dirichlet | neumann | {robin: h}, ...}");
+        if (b == null) {
+            return null;
+        }
+        c.allowOnly(b, sideNames);
+        Map<eigencheck.oracle.problem.Side, eigencheck.oracle.problem.Manufactured.Face> kinds =
+            new java.util.EnumMap<>(eigencheck.oracle.problem.Side.class);
+        boolean ok = true;
+        for (String side : sideNames) {
+            Node face = c.required(b, side, "dirichlet, neumann or {robin: h}");
+            eigencheck.oracle.problem.Manufactured.Face kind = null;
+            if (face instanceof Node.Scalar s && "dirichlet".equals(s.value())) {
+                kind = eigencheck.oracle.problem.Manufactured.Face.dirichlet();
+            } else if (face instanceof Node.Scalar s && "neumann".equals(s.value())) {
+                kind = eigencheck.oracle.problem.Manufactured.Face.neumann();
+            } else if (face instanceof Node.Obj r && r.fields().containsKey("robin")) {
+                double h = c.positive(r.fields().get("robin"), "the heat transfer coefficient h in W/(m^2 K)");
+                if (!Double.isNaN(h)) {
+                    kind = eigencheck.oracle.problem.Manufactured.Face.robin(h);
+                }
+            } else if (face != null) {
+                c.problem(Cause.INVALID_VALUE, face.location(), "a face kind is dirichlet, neumann or {robin: h}");
+            }
+            if (kind == null) {
+                ok = false;
+            } else {
+                kinds.put(eigencheck.oracle.problem.Side.valueOf(side.toUpperCase(java.util.Locale.ROOT)), kind);
+            }
+        }
+        return ok ? kinds : null;
     }
 
     private static Suite.Solver solver(Checker c, Node n) {

@@ -5,8 +5,8 @@ import java.util.List;
 
 /**
  * A manufactured solution as the reference: u(x, t) on a slab (read along one axis, constant across
- * the others) or u(x, y, t) on a rectangle; values from the expression itself and gradients from its
- * exact symbolic derivatives.
+ * the others), u(x, y, t) on a rectangle or u(x, y, z, t) on a box; values from the expression itself
+ * and gradients from its exact symbolic derivatives.
  */
 public final class ManufacturedReference implements Reference {
     private final Expression u;
@@ -16,14 +16,16 @@ public final class ManufacturedReference implements Reference {
     private final int axis;
 
     /**
-     * @param solution an expression of (x, t) or (x, y, t)
+     * @param solution an expression of (x, t), (x, y, t) or (x, y, z, t)
      * @param axis the output coordinate read as x for a one-dimensional solution
      */
     public ManufacturedReference(Expression solution, double time, int axis) {
         boolean planar = solution.variables().contains("y");
-        this.dimension = planar ? 2 : 1;
-        this.u = planar ? solution.over("x", "y", "t") : solution.over("x", "t");
-        List<String> space = planar ? List.of("x", "y") : List.of("x");
+        boolean solid = solution.variables().contains("z");
+        this.dimension = solid ? 3 : planar ? 2 : 1;
+        this.u = solid ? solution.over("x", "y", "z", "t") : planar ? solution.over("x", "y", "t")
+            : solution.over("x", "t");
+        List<String> space = solid ? List.of("x", "y", "z") : planar ? List.of("x", "y") : List.of("x");
         this.gradient = new Expression[space.size()];
         for (int a = 0; a < space.size(); a++) {
             gradient[a] = u.derivative(space.get(a));
@@ -40,8 +42,9 @@ public final class ManufacturedReference implements Reference {
             if (dimension == 1) {
                 arg[0] = xyz[3 * i + axis];
             } else {
-                arg[0] = xyz[3 * i];
-                arg[1] = xyz[3 * i + 1];
+                for (int a = 0; a < dimension; a++) {
+                    arg[a] = xyz[3 * i + a];
+                }
             }
             arg[dimension] = time;
             value[i] = u.value(arg);
@@ -52,8 +55,9 @@ public final class ManufacturedReference implements Reference {
                 if (dimension == 1) {
                     grad[3 * i + axis] = gradient[0].value(arg);
                 } else {
-                    grad[3 * i] = gradient[0].value(arg);
-                    grad[3 * i + 1] = gradient[1].value(arg);
+                    for (int a = 0; a < dimension; a++) {
+                        grad[3 * i + a] = gradient[a].value(arg);
+                    }
                 }
             }
         }
