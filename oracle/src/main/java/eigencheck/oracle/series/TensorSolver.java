@@ -470,6 +470,7 @@ public final class TensorSolver implements SpatialSolver {
         final int[] cap;
         final double depth;
         final boolean present;
+        private final double variation;
         private volatile Table table;
 
         Face(int axis, int side) {
@@ -489,6 +490,58 @@ public final class TensorSolver implements SpatialSolver {
             Table first = new Table(start);
             present = first.norm > 0;
             table = first;
+            variation = present && d == 2 ? variationOfData() : Double.NaN;
+        }
+
+        /**
+         * For a rectangle's side: V = |G(0)| + |G(L)| + 2 int |G'| (the integral by a 2048-point rule,
+         * doubled), which bounds |<G, X_j>| <= V/mu_j by one integration by parts; NaN when the data may
+         * be non-smooth (a step), where only the Cauchy-Schwarz bound is used.
+         */
+        private double variationOfData() {
+            int t = tangential[0];
+            Expression e = data[axis][side];
+            if (e.mayBeNonSmooth() || (sourceAlong != null && sourceAlong.mayBeNonSmooth())) {
+                return Double.NaN;
+            }
+            Expression de = e.variables().contains(NAMES[t]) ? e.derivative(NAMES[t]) : null;
+            double scaleData = type[axis][side] == ROBIN ? h[axis][side] : 1;
+            double[] point = new double[d];
+            point[axis] = side == 0 ? 0 : len[axis];
+            double[][] rule = rule(2048, len[t]);
+            double integral = 0;
+            for (int q = 0; q < 2048; q++) {
+                point[t] = rule[0][q];
+                double g = de == null ? 0 : scaleData * valueAt(de, point);
+                if (sourceAxis == t && type[axis][side] != NEUMANN) {
+                    double slope = -sourceSlice.heatFlux(point[t]).value() / k;
+                    g -= (type[axis][side] == ROBIN ? h[axis][side] : 1) * slope;
+                }
+                integral += rule[1][q] * Math.abs(g);
+            }
+            point[t] = 0;
+            double g0 = faceData(axis, side, point) - sourcePart(axis, side, point);
+            point[t] = len[t];
+            double gL = faceData(axis, side, point) - sourcePart(axis, side, point);
+            double v = Math.abs(g0) + Math.abs(gL) + 2 * integral;
+            return Double.isFinite(v) ? v : Double.NaN;
+        }
+
+        /** Integration-by-parts tails {value, gradient} of a rectangle's side from mode m on, at r = exp(-pi s/L). */
+        private double[] partsTails(double r, int m, Table tb) {
+            int t = tangential[0];
+            double lt = len[t];
+            double e1 = Math.exp(-2 * Math.PI * depth / lt);
+            double n = tb.normLower;
+            double geometric = Math.pow(r, m) / (1 - r);
+            if (type[axis][side] == DIRICHLET) {
+                double c = 2 * variation * lt / (Math.PI * n * (1 - e1));
+                double cg = 4 * variation / (n * (1 - e1));
+                return new double[] {c * geometric / m, cg * geometric};
+            }
+            double c = 2 * variation * lt * lt / (Math.PI * Math.PI * n * k * (1 - e1));
+            double cg = 4 * variation * lt / (Math.PI * n * k * (1 - e1));
+            return new double[] {c * geometric / ((double) m * m), cg * geometric / m};
         }
 
         /** Coefficients for at least {@code needed} modes per direction. */
@@ -528,6 +581,7 @@ public final class TensorSolver implements SpatialSolver {
             final double norm;
             final double sup; // bound of 2 |a_m| |G_m| over all m
             final double profileNorm; // bound of ||a_m y_m|| over all m
+            final double normLower; // lower bound of the tangential modes' norms (product over the axes)
 
             Table(int[] size) {
                 this.size = size.clone();
@@ -599,6 +653,7 @@ public final class TensorSolver implements SpatialSolver {
                 }
                 sup = 2 * aMax * norm / Math.sqrt(normLower);
                 profileNorm = yMax;
+                this.normLower = normLower;
             }
 
             int index(int j0, int j1) {
@@ -666,6 +721,27 @@ public final class TensorSolver implements SpatialSolver {
                 }
                 gTail = gradientTail(rr, m, sup);
                 tail = valueTail(rr, m, sup);
+            }
+            if (nt == 1 && Double.isFinite(variation)) {
+                // the integration-by-parts tail decays faster in m: the fewest modes that meet both budgets
+                int hiM = Math.min(m[0], cap[0]);
+                double[] atHi = partsTails(r[0], hiM, tb);
+                if (atHi[0] <= budget && (grad == null || atHi[1] <= gradientBudget)) {
+                    int loM = 1;
+                    while (loM < hiM) {
+                        int mid = (loM + hiM) >>> 1;
+                        double[] at = partsTails(r[0], mid, tb);
+                        if (at[0] <= budget && (grad == null || at[1] <= gradientBudget)) {
+                            hiM = mid;
+                        } else {
+                            loM = mid + 1;
+                        }
+                    }
+                    double[] at = partsTails(r[0], hiM, tb);
+                    m[0] = hiM;
+                    tail = Math.min(at[0], valueTail(rr, m, sup));
+                    gTail = grad == null ? 0 : Math.min(at[1], gradientTail(rr, m, sup));
+                }
             }
             for (int i = 0; i < nt; i++) {
                 if (m[i] > cap[i]) {

@@ -146,6 +146,12 @@ class RectangleTest {
             assertWithin(exact.value(x, y, t), o.temperature(new double[] {x, y}, t), 1e-10 * o.temperatureScale(),
                 "u at " + x + ", " + y + ", " + t);
         }
+        // points 1e-3 and 2e-3 of the edge from the sides with data (the integration-by-parts tails)
+        double[][] near = {{1e-3, 0.5}, {0.999, 0.3}, {0.5, 1e-3 * ly}, {0.4, 0.999 * ly}, {2e-3, 0.2}, {0.3, 0.998 * ly}};
+        for (double[] q : near) {
+            assertWithin(exact.value(q[0], q[1], 0.5), o.temperature(q, 0.5), 1e-10 * o.temperatureScale(),
+                "u near a side at " + q[0] + ", " + q[1]);
+        }
         // exact cell means against a 20 x 20 Gauss-Legendre rule on the closed form (smooth: machine precision)
         org.apache.commons.math3.analysis.integration.gauss.GaussIntegrator rule =
             new org.apache.commons.math3.analysis.integration.gauss.GaussIntegratorFactory().legendre(20, 0, 1);
