@@ -64,9 +64,9 @@ public final class TensorSolver implements SpatialSolver {
     private final int[][] type = new int[3][2];
     private final double[][] h = new double[3][2];
     private final Expression[][] data = new Expression[3][2];
-    private final int sourceAxis;
-    private final SlabSolver.Slice sourceSlice;
-    private final Expression sourceAlong;
+    /** Per axis: the slab slice of the source's part along it, or null (an additive source has several). */
+    private final SlabSolver.Slice[] sourceSlices;
+    private final Expression[] sourceParts;
     private final List<Face> faces = new ArrayList<>();
     private final Expression initial;
     private final int transientCap;
@@ -122,36 +122,46 @@ public final class TensorSolver implements SpatialSolver {
         }
         variation += 2 * requireConstantInTime(problem.source(), "source", timeHorizon) * lengthScale * lengthScale / k;
         Expression q = problem.source();
-        int along = -1;
+        List<Integer> along = new ArrayList<>();
         for (int i = 0; i < d; i++) {
             double change = variationAlong(q, i);
             variation += 2 * (Double.isFinite(change) ? change : 0) * lengthScale * lengthScale / k;
             if (change == Double.POSITIVE_INFINITY) {
-                if (along >= 0) {
-                    throw new OracleException(Reason.UNSUPPORTED, "source: varies along " + NAMES[along] + " and "
-                        + NAMES[i] + "; this version solves rectangles and boxes whose source varies along one axis at"
-                        + " most (for a general source use a manufactured solution)");
-                }
-                along = i;
+                along.add(i);
             }
+        }
+        if (along.size() > 1) {
+            variation += 2 * requireAdditive(q, along) * lengthScale * lengthScale / k;
         }
         boolean zeroSource = q.isConstant() && q.value(new double[q.variables().size()]) == 0;
-        if (!zeroSource && along < 0) {
-            for (int i = 0; i < d && along < 0; i++) {
+        int constantAxis = along.isEmpty() ? -1 : along.get(0);
+        if (!zeroSource && along.isEmpty()) {
+            for (int i = 0; i < d && constantAxis < 0; i++) {
                 if (!axes[i].zero) {
-                    along = i;
+                    constantAxis = i;
                 }
             }
+            along.add(constantAxis);
         }
-        if (!zeroSource && axes[along].zero) {
-            throw new OracleException(Reason.UNSUPPORTED, "source: varies along " + NAMES[along] + ", whose two faces"
-                + " are both insulated or flux-driven; this version needs a temperature or convection on one of them");
+        this.sourceSlices = new SlabSolver.Slice[d];
+        this.sourceParts = new Expression[d];
+        if (!zeroSource) {
+            for (int i : along) {
+                if (axes[i].zero) {
+                    throw new OracleException(Reason.UNSUPPORTED, "source: varies along " + NAMES[i] + ", whose two"
+                        + " faces are both insulated or flux-driven; this version needs a temperature or convection on"
+                        + " one of them");
+                }
+            }
+            // an additive source Q(0) + sum_i (Q along axis i - Q(0)): the constant goes with the first axis
+            double q0 = valueAt(q, new double[d]);
+            for (int i : along) {
+                Problem slab = sourceSlab(problem, i, i == along.get(0) ? 0 : q0);
+                sourceParts[i] = slab.source();
+                sourceSlices[i] = new SlabSolver(slab, 0, tolerance / (8 * along.size())).at(0);
+            }
         }
         this.timeVariation = variation;
-        this.sourceAxis = zeroSource ? -1 : along;
-        Problem slab = zeroSource ? null : sourceSlab(problem, along);
-        this.sourceAlong = zeroSource ? null : slab.source();
-        this.sourceSlice = zeroSource ? null : new SlabSolver(slab, 0, tolerance / 8).at(0);
         this.initial = problem.initial();
         this.scale = scaleOf(problem);
         for (int i = 0; i < d; i++) {
@@ -227,8 +237,48 @@ public final class TensorSolver implements SpatialSolver {
         return change <= 1e-12 * Math.max(1, size) ? change : Double.POSITIVE_INFINITY;
     }
 
+    /**
+     * Refuses a source that varies along several axes unless it is additive, Q = sum_i q_i(x_i): the
+     * mixed differences Q(p) - Q(p, x_i = 0) - Q(p, x_j = 0) + Q(p, x_i = x_j = 0) vanish at 81 sampled
+     * points for every pair (to 1e-12 of |Q|). Returns the largest mixed difference found.
+     */
+    private double requireAdditive(Expression q, List<Integer> along) {
+        double worst = 0;
+        double size = 0;
+        double[] p = new double[d];
+        for (int c = 0; c < 81; c++) {
+            for (int i = 0; i < d; i++) {
+                p[i] = len[i] * (((c * 7 + i * 5 + 1) % 9) / 8.0);
+            }
+            size = Math.max(size, Math.abs(valueAt(q, p)));
+            for (int a = 0; a < along.size(); a++) {
+                for (int b = a + 1; b < along.size(); b++) {
+                    int i = along.get(a);
+                    int j = along.get(b);
+                    double[] pi = p.clone();
+                    pi[i] = 0;
+                    double[] pj = p.clone();
+                    pj[j] = 0;
+                    double[] pij = pi.clone();
+                    pij[j] = 0;
+                    worst = Math.max(worst, Math.abs(valueAt(q, p) - valueAt(q, pi) - valueAt(q, pj) + valueAt(q, pij)));
+                }
+            }
+        }
+        if (worst > 1e-12 * Math.max(1, size)) {
+            StringBuilder names = new StringBuilder();
+            for (int i : along) {
+                names.append(names.length() == 0 ? "" : " and ").append(NAMES[i]);
+            }
+            throw new OracleException(Reason.UNSUPPORTED, "source: varies along " + names + " and is not a sum of"
+                + " terms of one coordinate each; this version solves rectangles and boxes whose source is such a sum"
+                + " (Q = a(x) + b(y) + c(z), a constant included); for a general source use a manufactured solution");
+        }
+        return worst;
+    }
+
     /** The steady slab problem of P along {@code axis}, with that axis's homogeneous face conditions. */
-    private Problem sourceSlab(Problem problem, int axis) {
+    private Problem sourceSlab(Problem problem, int axis, double subtract) {
         Map<Side, BoundaryCondition> bc = new EnumMap<>(Side.class);
         Side[] slabSides = {Side.XMIN, Side.XMAX};
         for (int s = 0; s < 2; s++) {
@@ -251,6 +301,9 @@ public final class TensorSolver implements SpatialSolver {
         q = q.over(NAMES[axis], "t");
         if (axis != 0) {
             q = q.renamed(NAMES[axis], "x");
+        }
+        if (subtract != 0) {
+            q = q.linear(1, Expression.constant(1, "x", "t"), -subtract);
         }
         return new Problem(new Slab(len[axis]), problem.material(), Expression.parse("0", "x"), q, bc, true);
     }
@@ -501,7 +554,11 @@ public final class TensorSolver implements SpatialSolver {
         private double variationOfData() {
             int t = tangential[0];
             Expression e = data[axis][side];
-            if (e.mayBeNonSmooth() || (sourceAlong != null && sourceAlong.mayBeNonSmooth())) {
+            boolean rough = e.mayBeNonSmooth();
+            for (Expression part : sourceParts) {
+                rough |= part != null && part.mayBeNonSmooth();
+            }
+            if (rough) {
                 return Double.NaN;
             }
             Expression de = e.variables().contains(NAMES[t]) ? e.derivative(NAMES[t]) : null;
@@ -513,8 +570,8 @@ public final class TensorSolver implements SpatialSolver {
             for (int q = 0; q < 2048; q++) {
                 point[t] = rule[0][q];
                 double g = de == null ? 0 : scaleData * valueAt(de, point);
-                if (sourceAxis == t && type[axis][side] != NEUMANN) {
-                    double slope = -sourceSlice.heatFlux(point[t]).value() / k;
+                if (sourceSlices[t] != null && type[axis][side] != NEUMANN) {
+                    double slope = -sourceSlices[t].heatFlux(point[t]).value() / k;
                     g -= (type[axis][side] == ROBIN ? h[axis][side] : 1) * slope;
                 }
                 integral += rule[1][q] * Math.abs(g);
@@ -895,12 +952,17 @@ public final class TensorSolver implements SpatialSolver {
         return m;
     }
 
-    /** B_f(P) on a face normal to an axis other than the source's: P (Dirichlet), 0 (Neumann), h P (Robin). */
+    /** B_f(P) on a face: sum over the source's parts along the other axes of P_i (Dirichlet), 0 (Neumann), h P_i (Robin). */
     private double sourcePart(int axis, int side, double[] point) {
-        if (sourceAxis < 0 || sourceAxis == axis || type[axis][side] == NEUMANN) {
+        if (type[axis][side] == NEUMANN) {
             return 0;
         }
-        double p = sourceSlice.temperature(point[sourceAxis]).value();
+        double p = 0;
+        for (int i = 0; i < d; i++) {
+            if (i != axis && sourceSlices[i] != null) {
+                p += sourceSlices[i].temperature(point[i]).value();
+            }
+        }
         return type[axis][side] == ROBIN ? h[axis][side] * p : p;
     }
 
@@ -920,10 +982,13 @@ public final class TensorSolver implements SpatialSolver {
             double err = g[1][0];
             double uNorm = 0;
             int count = c.length;
-            // the source part: P_j = Q_j / (k mu_j^2), times the projections of 1 on the other axes
-            if (sourceAxis >= 0) {
+            // the source parts: P_j = Q_j / (k mu_j^2), times the projections of 1 on the other axes
+            for (int sourceAxis = 0; sourceAxis < d; sourceAxis++) {
+                if (sourceSlices[sourceAxis] == null) {
+                    continue;
+                }
                 AxisModes a = axes[sourceAxis];
-                double[][] qa = projectSource(m[sourceAxis]);
+                double[][] qa = projectSource(sourceAxis, m[sourceAxis]);
                 double[][] ones = new double[d][];
                 for (int i = 0; i < d; i++) {
                     axes[i].ensure(m[i]);
@@ -1024,9 +1089,9 @@ public final class TensorSolver implements SpatialSolver {
     }
 
     /** Q_j/(rho c ... ) projections of the source along its axis: {coefficients, {error, ||P|| in the body}}. */
-    private double[][] projectSource(int m) {
-        int a = sourceAxis;
-        Expression q = sourceAlong;
+    private double[][] projectSource(int a, int m) {
+        Expression q = sourceParts[a];
+        SlabSolver.Slice sourceSlice = sourceSlices[a];
         double[][] p = project(point -> q.value(point[a], 0), new int[] {a}, new int[] {m}, new double[d]);
         // ||P|| over the body: the slab values on a Gauss rule, times the other edges' lengths
         double[][] r = rule(64, len[a]);
@@ -1224,10 +1289,12 @@ public final class TensorSolver implements SpatialSolver {
             double value = 0;
             double bound = timeVariation;
             double[] bounds = new double[2];
-            if (sourceAxis >= 0) {
-                Evaluation e = sourceSlice.temperature(p[o + sourceAxis]);
-                value += e.value();
-                bound += e.bound();
+            for (int i = 0; i < d; i++) {
+                if (sourceSlices[i] != null) {
+                    Evaluation e = sourceSlices[i].temperature(p[o + i]);
+                    value += e.value();
+                    bound += e.bound();
+                }
             }
             for (Face f : faces) {
                 value += f.add(p, o, budget / (4 * faces.size()), null, bounds);
@@ -1254,8 +1321,11 @@ public final class TensorSolver implements SpatialSolver {
             double[] g = new double[d];
             double bound = timeVariation / minLength();
             double[] bounds = new double[2];
-            if (sourceAxis >= 0) {
-                Evaluation flux = sourceSlice.heatFlux(p[o + sourceAxis]);
+            for (int sourceAxis = 0; sourceAxis < d; sourceAxis++) {
+                if (sourceSlices[sourceAxis] == null) {
+                    continue;
+                }
+                Evaluation flux = sourceSlices[sourceAxis].heatFlux(p[o + sourceAxis]);
                 g[sourceAxis] += -flux.value() / k;
                 bound += flux.bound() / k;
             }
@@ -1292,10 +1362,12 @@ public final class TensorSolver implements SpatialSolver {
             double value = 0;
             double bound = timeVariation;
             double[] bounds = new double[2];
-            if (sourceAxis >= 0) {
-                Evaluation e = sourceSlice.cellAverage(lo[sourceAxis], hi[sourceAxis]);
-                value += e.value();
-                bound += e.bound();
+            for (int i = 0; i < d; i++) {
+                if (sourceSlices[i] != null) {
+                    Evaluation e = sourceSlices[i].cellAverage(lo[i], hi[i]);
+                    value += e.value();
+                    bound += e.bound();
+                }
             }
             for (Face f : faces) {
                 value += f.add(lo, 0, hi, budget / (4 * faces.size()), null, bounds);

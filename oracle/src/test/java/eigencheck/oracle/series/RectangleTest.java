@@ -176,6 +176,34 @@ class RectangleTest {
     }
 
     @Test
+    void additiveSourceAlongBothAxes() {
+        // u = 2 + sin(pi x) + y^3: Q = k (pi^2 sin(pi x) - 6 y), a sum of one-coordinate terms (calculus)
+        Expression exact = xy("2 + sin(pi*x) + y^3");
+        Map<Side, Manufactured.Face> kinds = new EnumMap<>(Side.class);
+        kinds.put(Side.XMIN, Manufactured.Face.dirichlet());
+        kinds.put(Side.XMAX, Manufactured.Face.robin(5));
+        kinds.put(Side.YMIN, Manufactured.Face.neumann());
+        kinds.put(Side.YMAX, Manufactured.Face.dirichlet());
+        Problem derived = Manufactured.cartesian(exact, new Rectangle(1, 0.8), new Material(2, 3), kinds);
+        Problem steady = new Problem(derived.domain(), derived.material(), derived.initial(), derived.source(),
+            derived.boundary(), true);
+        Oracle o = Oracle.prepare(steady, 0, 1e-10);
+        Oracle transientFromSteady = Oracle.prepare(derived, 1, 1e-10);
+        SplittableRandom random = new SplittableRandom(21);
+        for (int i = 0; i < 100; i++) {
+            double x = 0.02 + 0.96 * random.nextDouble();
+            double y = (0.02 + 0.96 * random.nextDouble()) * 0.8;
+            double u = exact.value(x, y, 0);
+            assertWithin(u, o.temperature(new double[] {x, y}, 0), 1e-10 * o.temperatureScale(), "steady at " + x + ", " + y);
+            assertWithin(u, transientFromSteady.temperature(new double[] {x, y}, 0.5), 1e-10
+                * transientFromSteady.temperatureScale(), "transient started at the steady state");
+            Evaluation[] g = o.gradient(new double[] {x, y}, 0);
+            assertWithin(Math.PI * Math.cos(Math.PI * x), g[0], 1e-10 * o.temperatureScale(), "du/dx");
+            assertWithin(3 * y * y, g[1], 1e-10 * o.temperatureScale(), "du/dy");
+        }
+    }
+
+    @Test
     void refusesTimeDependentDataAndTwoDimensionalSources() {
         BoundaryCondition zero = new BoundaryCondition.Dirichlet(xy("0"));
         Problem timed = new Problem(new Rectangle(1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y"),
