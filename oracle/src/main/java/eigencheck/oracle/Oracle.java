@@ -6,7 +6,7 @@ import eigencheck.oracle.problem.Problem;
 import eigencheck.oracle.problem.Rectangle;
 import eigencheck.oracle.problem.Slab;
 import eigencheck.oracle.problem.Sphere;
-import eigencheck.oracle.series.CylinderSolver;
+import eigencheck.oracle.series.RadialSolver;
 import eigencheck.oracle.series.SlabSolver;
 import eigencheck.oracle.series.SpatialSolver;
 import eigencheck.oracle.series.SphereMapping;
@@ -44,7 +44,7 @@ import java.util.stream.IntStream;
  * The rectangle and box are solved by superposition of a source part, one elliptic series per face
  * with data and a decaying tensor-product transient; the cylinder by its J0 modes about the steady
  * state. Both take source and face data constant in time in this version; how they are bounded is on
- * {@code TensorSolver} and {@code CylinderSolver}. Points are given as arrays of their coordinates
+ * {@code TensorSolver} and {@code RadialSolver}. Points are given as arrays of their coordinates
  * (x, y[, z] or r); gradients are certified to tolerance * U / L.
  *
  * @since 0.1
@@ -82,6 +82,10 @@ public final class Oracle {
      * @throws IllegalArgumentException if {@code tolerance} is not in (0, 1) or the horizon is negative
      */
     public static Oracle prepare(Problem problem, double timeHorizon, double tolerance) {
+        if (problem.domain() instanceof Sphere sphereDomain && RadialSolver.prefersSphere(problem)) {
+            // a flux surface or a small Biot number with data constant in time: the direct radial series
+            return new Oracle(problem, new RadialSolver(problem, timeHorizon, tolerance), tolerance);
+        }
         if (problem.domain() instanceof Sphere) {
             // u = w/r with w the solution of the mapped slab problem
             return new Oracle(problem, SphereMapping.solver(problem, timeHorizon, tolerance), tolerance, true);
@@ -90,7 +94,7 @@ public final class Oracle {
             return new Oracle(problem, new TensorSolver(problem, timeHorizon, tolerance), tolerance);
         }
         if (problem.domain() instanceof Cylinder) {
-            return new Oracle(problem, new CylinderSolver(problem, timeHorizon, tolerance), tolerance);
+            return new Oracle(problem, new RadialSolver(problem, timeHorizon, tolerance), tolerance);
         }
         if (!(problem.domain() instanceof Slab)) {
             throw new OracleException(OracleException.Reason.UNSUPPORTED,

@@ -6,32 +6,39 @@ import eigencheck.oracle.OracleException.Reason;
 import eigencheck.oracle.expr.Expression;
 import eigencheck.oracle.modes.RadialModes;
 import eigencheck.oracle.problem.BoundaryCondition;
-import eigencheck.oracle.problem.Cylinder;
 import eigencheck.oracle.problem.Problem;
 import eigencheck.oracle.problem.Side;
 import java.util.SplittableRandom;
 
 /**
- * The solid cylinder, radially symmetric (infinitely long or with insulated ends): u = A t + P(r) + V.
+ * The solid cylinder (radially symmetric, infinitely long or with insulated ends) and the solid sphere
+ * with data constant in time, n = 1 or 2: u = A t + P(r) + V.
  * <ul>
- * <li>P solves \(-k (r P')'/r = Q - \rho c A\) with the surface condition; A = 0 except with a flux
- * surface, where \(A = (2q/R + (2/R^2)\int_0^R Q r\,dr)/(\rho c)\) is the mean heating rate and P is
- * fixed by P(R) = 0. With \(J(r) = r\int_0^1 s\,\tilde Q(rs)\,ds\) (Gauss-Legendre, exact at r = 0),
+ * <li>P solves \(-k (r^n P')'/r^n = Q - \rho c A\) with the surface condition; A = 0 except with a flux
+ * surface, where \(A = ((n+1) q/R + ((n+1)/R^{n+1})\int_0^R Q r^n\,dr)/(\rho c)\) is the mean heating
+ * rate and P is fixed by P(R) = 0. With \(J(r) = r\int_0^1 s^n\,\tilde Q(rs)\,ds\) (Gauss-Legendre,
+ * exact at r = 0),
  * \(P' = -J/k\) and \(P(r) = P(R) + \int_r^R J/k\); J is a Chebyshev series on [0, R] of adaptive
  * length (its integral exact), its error measured at random points (times 10).</li>
- * <li>V: \(\sum_n c_n e^{-\alpha\beta_n^2 t} J_0(\beta_n r)\) with \(\beta_n R\) the roots of
- * {@link RadialModes} (and the zero mode of the flux surface), \(c_n\) the projection of g - P with
- * weight r (Gauss-Legendre, error against a rule 25 % finer, times 10).</li>
+ * <li>V: \(\sum_n c_n e^{-\alpha\beta_n^2 t} X_n(r)\), \(X = J_0(\beta r)\) or \(\sin(\beta r)/(\beta r)\),
+ * with \(\beta_n R\) the roots of {@link RadialModes} (and the zero mode of the flux surface), \(c_n\)
+ * the projection of g - P with weight r^n (Gauss-Legendre, error against a rule 25 % finer, times 10).</li>
  * </ul>
+ * The sphere takes this route for a flux surface (the zero mode w = r that the slab mapping lacks) and
+ * for convection below Bi = 0.05, where the mapping's quasi-static subtraction is ill-conditioned; its
+ * norms \(\|X_n\|^2 \ge 0.42 R/\beta_n^2\) for z_n >= pi (from 1 - sin(2z)/(2z) >= 1 - 1/(2 pi)), so
+ * \(|c_n| \le \|g - P\| (n + 1)\pi/(\sqrt{0.42} R^{3/2})\).
  * Truncation: \(|c_n| \le \|g - P\|/\|J_0(\beta_n r)\|\) (Cauchy-Schwarz), \(|J_0|, |J_1| \le 1\),
  * \(\beta_n \ge (n-1)\pi/R\) and, beyond the computed modes, \(\|J_0(\beta_n r)\|^2 \ge R^2/(2\pi z_n)\)
  * (half the large-z value of \(R^2(J_0^2+J_1^2)/2\); an asymptotic estimate with a factor 2 of margin,
  * checked against the computed norms in CylinderTest). Source and surface data must be constant in t.
  */
-public final class CylinderSolver implements SpatialSolver {
+public final class RadialSolver implements SpatialSolver {
     private static final double EPS = Math.ulp(1.0);
     private static final int CAP = 4000;
 
+    private final boolean sphere;
+    private final int n;
     private final double radius;
     private final double k;
     private final double rhoC;
@@ -55,11 +62,13 @@ public final class CylinderSolver implements SpatialSolver {
     private double coefError;
     private double tailCoefficient;
 
-    public CylinderSolver(Problem problem, double timeHorizon, double tolerance) {
+    public RadialSolver(Problem problem, double timeHorizon, double tolerance) {
         if (!(tolerance > 0 && tolerance < 1)) {
             throw new IllegalArgumentException("tolerance " + tolerance + " must be in (0, 1)");
         }
-        this.radius = ((Cylinder) problem.domain()).radius();
+        this.sphere = problem.domain() instanceof eigencheck.oracle.problem.Sphere;
+        this.n = sphere ? 2 : 1;
+        this.radius = problem.domain().characteristicLength();
         this.k = problem.material().conductivity();
         this.rhoC = problem.material().volumetricHeatCapacity();
         this.alpha = problem.material().diffusivity();
@@ -74,14 +83,15 @@ public final class CylinderSolver implements SpatialSolver {
         BoundaryCondition surface = problem.condition(Side.SURFACE);
         for (Expression e : new Expression[] {source, surface.data()}) {
             if (e.variables().contains("t") && !e.isIndependentOf("t")) {
-                throw new OracleException(Reason.UNSUPPORTED, "oracle: the cylinder's source and surface data must be"
-                    + " constant in time in this version (" + e.source() + " depends on t); the initial temperature"
-                    + " may be anything");
+                throw new OracleException(Reason.UNSUPPORTED, "oracle: the " + (sphere ? "sphere's" : "cylinder's")
+                    + " source and surface data must be constant in time in this version" + (sphere
+                    ? " for a flux surface or Bi below 0.05" : "") + " (" + e.source() + " depends on t); the initial"
+                    + " temperature may be anything");
             }
         }
         double data = valueOf(surface.data(), radius);
         Expression q = source;
-        double sourceIntegral = integrate(r -> valueOf(q, r) * r);
+        double sourceIntegral = integrate(r -> valueOf(q, r) * Math.pow(r, n));
         if (surface instanceof BoundaryCondition.Dirichlet) {
             biot = Double.POSITIVE_INFINITY;
             flux = false;
@@ -93,20 +103,21 @@ public final class CylinderSolver implements SpatialSolver {
         } else {
             biot = 0;
             flux = true;
-            drift = (2 * data / radius + 2 * sourceIntegral / (radius * radius)) / rhoC;
+            drift = ((n + 1) * data / radius + (n + 1) * sourceIntegral / Math.pow(radius, n + 1)) / rhoC;
             if (steady) {
-                throw new OracleException(Reason.UNSUPPORTED, "oracle: a steady cylinder with a flux surface has no"
+                throw new OracleException(Reason.UNSUPPORTED, "oracle: a steady " + (sphere ? "sphere" : "cylinder")
+                    + " with a flux surface has no"
                     + " unique steady state (u is fixed only up to a constant, and only when the net heat input is"
                     + " zero); give the surface a temperature or convection, or solve the transient");
             }
         }
-        // J(r) = r int_0^1 s Qt(r s) ds, Qt = Q - rho c A
+        // J(r) = r int_0^1 s^n Qt(r s) ds, Qt = Q - rho c A
         GaussLegendre g = GaussLegendre.of(40);
         java.util.function.DoubleUnaryOperator jExact = r -> {
             double sum = 0;
             for (int i = 0; i < g.nodes.length; i++) {
                 double s = 0.5 * (g.nodes[i] + 1);
-                sum += 0.5 * g.weights[i] * s * (valueOf(q, r * s) - rhoC * drift);
+                sum += 0.5 * g.weights[i] * (n == 1 ? s : s * s) * (valueOf(q, r * s) - rhoC * drift);
             }
             return r * sum;
         };
@@ -125,7 +136,7 @@ public final class CylinderSolver implements SpatialSolver {
                 break;
             }
             if (n == 1025) {
-                throw new OracleException(Reason.DATA_NOT_RESOLVED, "oracle: the cylinder's source is too rough for a"
+                throw new OracleException(Reason.DATA_NOT_RESOLVED, "oracle: the radial source is too rough for a"
                     + " Chebyshev series of degree 1024 in r");
             }
         }
@@ -151,7 +162,7 @@ public final class CylinderSolver implements SpatialSolver {
             surfaceValue = 0;
         }
         double u = Math.abs(data) * (flux ? radius / k : 1);
-        u = Math.max(u, Math.abs(sourceIntegral) * 2 / k);
+        u = Math.max(u, Math.abs(sourceIntegral) * (n + 1) / (k * Math.pow(radius, n - 1)));
         if (!steady) {
             for (int i = 0; i <= 32; i++) {
                 u = Math.max(u, Math.abs(valueOf(initial, radius * i / 32)));
@@ -162,6 +173,23 @@ public final class CylinderSolver implements SpatialSolver {
             u = Math.max(u, Math.abs(steadyValue(radius * i / 32)));
         }
         scale = u > 0 ? u : 1;
+    }
+
+    /**
+     * True when a sphere problem goes to this solver: a flux surface, or convection below Bi = 0.05,
+     * with source and surface data that do not depend on t (the slab mapping takes the rest).
+     */
+    public static boolean prefersSphere(Problem p) {
+        BoundaryCondition surface = p.condition(Side.SURFACE);
+        boolean constant = p.source().isIndependentOf("t") && surface.data().isIndependentOf("t");
+        if (surface instanceof BoundaryCondition.Neumann) {
+            return constant;
+        }
+        if (surface instanceof BoundaryCondition.Robin r) {
+            double biot = r.heatTransferCoefficient() * p.domain().characteristicLength() / p.material().conductivity();
+            return constant && biot < 0.05;
+        }
+        return false;
     }
 
     private static double valueOf(Expression e, double r) {
@@ -190,6 +218,35 @@ public final class CylinderSolver implements SpatialSolver {
     private double steadyValue(double r) {
         double s = Chebyshev.reference(r, 0, radius);
         return surfaceValue + (Chebyshev.value(jIntegral, 1) - Chebyshev.value(jIntegral, s)) / k;
+    }
+
+    /** X(x) at x = beta r: J0(x) or sin(x)/x. */
+    private double mode(double x) {
+        if (!sphere) {
+            return Bessel.j0(x);
+        }
+        return x < 1e-4 ? 1 - x * x / 6 : Math.sin(x) / x;
+    }
+
+    /** dX/dx: -J1(x) or (x cos x - sin x)/x^2. */
+    private double modeSlope(double x) {
+        if (!sphere) {
+            return -Bessel.j1(x);
+        }
+        return x < 1e-3 ? -x / 3 + x * x * x / 30 : (x * Math.cos(x) - Math.sin(x)) / (x * x);
+    }
+
+    /** The mean of X(beta r) over a < r < b with weight r^n (times the weight's integral). */
+    private double modeIntegral(double beta, double a, double b) {
+        if (beta == 0) {
+            return (Math.pow(b, n + 1) - Math.pow(a, n + 1)) / (n + 1);
+        }
+        if (!sphere) {
+            return (b * Bessel.j1(beta * b) - a * Bessel.j1(beta * a)) / beta;
+        }
+        // int r^2 sin(beta r)/(beta r) dr = [sin(beta r) - beta r cos(beta r)]/beta^3
+        return ((Math.sin(beta * b) - beta * b * Math.cos(beta * b)) - (Math.sin(beta * a) - beta * a
+            * Math.cos(beta * a))) / (beta * beta * beta);
     }
 
     @Override
@@ -221,13 +278,14 @@ public final class CylinderSolver implements SpatialSolver {
         double[] b = new double[size];
         double[] nn = new double[size];
         for (int i = 0; i < size; i++) {
+            RadialModes.Shape shape = sphere ? RadialModes.Shape.SPHERE : RadialModes.Shape.CYLINDER;
             if (flux && i == 0) {
                 b[i] = 0;
-                nn[i] = radius * radius / 2;
+                nn[i] = Math.pow(radius, n + 1) / (n + 1);
             } else {
-                double z = RadialModes.root(RadialModes.Shape.CYLINDER, flux ? i : i + 1, biot);
+                double z = RadialModes.root(shape, flux ? i : i + 1, biot);
                 b[i] = z / radius;
-                nn[i] = RadialModes.normSquared(RadialModes.Shape.CYLINDER, radius, b[i]);
+                nn[i] = RadialModes.normSquared(shape, radius, b[i]);
             }
         }
         double[][] result = new double[2][];
@@ -242,11 +300,11 @@ public final class CylinderSolver implements SpatialSolver {
             double sum2 = 0;
             for (int q = 0; q < nq; q++) {
                 double r = 0.5 * radius * (g.nodes[q] + 1);
-                double w = 0.5 * radius * g.weights[q] * r;
+                double w = 0.5 * radius * g.weights[q] * (n == 1 ? r : r * r);
                 double f = valueOf(initial, r) - steadyValue(r);
                 sum2 += w * f * f;
                 for (int i = 0; i < size; i++) {
-                    out[i] += w * f * Bessel.j0(b[i] * r);
+                    out[i] += w * f * mode(b[i] * r);
                 }
             }
             for (int i = 0; i < size; i++) {
@@ -265,8 +323,10 @@ public final class CylinderSolver implements SpatialSolver {
         beta = b;
         norm = nn;
         coef = result[0];
-        // |c_i| <= ||f|| / ||J0(beta_i r)|| <= ||f|| sqrt(2 pi z_i)/R with z_i <= (i + 1) pi: <= C (i + 1)
-        tailCoefficient = normF * Math.PI * Math.sqrt(2) / radius;
+        // cylinder: |c_i| <= ||f|| / ||J0(beta_i r)|| <= ||f|| sqrt(2 pi z_i)/R with z_i <= (i + 1) pi: <= C (i + 1);
+        // sphere: ||X_i||^2 >= 0.42 R / beta_i^2 with beta_i <= (i + 1) pi/R
+        tailCoefficient = sphere ? normF * Math.PI / (Math.sqrt(0.42) * Math.pow(radius, 1.5))
+            : normF * Math.PI * Math.sqrt(2) / radius;
     }
 
     @Override
@@ -371,7 +431,7 @@ public final class CylinderSolver implements SpatialSolver {
             double value = (steady ? 0 : drift * t) + steadyValue(r);
             double magnitude = Math.abs(value);
             for (int i = 0; i < m; i++) {
-                double term = weighted[i] * Bessel.j0(b[i] * r);
+                double term = weighted[i] * mode(b[i] * r);
                 value += term;
                 magnitude += Math.abs(term);
             }
@@ -408,7 +468,7 @@ public final class CylinderSolver implements SpatialSolver {
                 throw new OracleException(Reason.UNSUPPORTED, "oracle: the shell mean at t = 0 is that of the initial"
                     + " temperature; ask for t > 0");
             }
-            double area = 0.5 * (outer * outer - inner * inner);
+            double area = (Math.pow(outer, n + 1) - Math.pow(inner, n + 1)) / (n + 1);
             double[] sums = new double[2];
             int[] orders = {24, 36};
             for (int pass = 0; pass < 2; pass++) {
@@ -416,15 +476,14 @@ public final class CylinderSolver implements SpatialSolver {
                 double sum = 0;
                 for (int i = 0; i < g.nodes.length; i++) {
                     double r = 0.5 * (inner + outer) + 0.5 * (outer - inner) * g.nodes[i];
-                    sum += 0.5 * (outer - inner) * g.weights[i] * r * steadyValue(r);
+                    sum += 0.5 * (outer - inner) * g.weights[i] * (n == 1 ? r : r * r) * steadyValue(r);
                 }
                 sums[pass] = sum;
             }
             double value = (steady ? 0 : drift * t) + sums[1] / area;
             double magnitude = Math.abs(value);
             for (int i = 0; i < m; i++) {
-                double mean = b[i] == 0 ? 1 : (hi[0] * Bessel.j1(b[i] * hi[0]) - lo[0] * Bessel.j1(b[i] * lo[0]))
-                    / (b[i] * area);
+                double mean = modeIntegral(b[i], inner, outer) / area;
                 double term = weighted[i] * mean;
                 value += term;
                 magnitude += Math.abs(term);
@@ -449,7 +508,7 @@ public final class CylinderSolver implements SpatialSolver {
             double g = -Chebyshev.value(j, s) / k;
             double magnitude = Math.abs(g);
             for (int i = 0; i < m; i++) {
-                double term = -weighted[i] * b[i] * Bessel.j1(b[i] * r);
+                double term = weighted[i] * b[i] * modeSlope(b[i] * r);
                 g += term;
                 magnitude += Math.abs(term);
             }
