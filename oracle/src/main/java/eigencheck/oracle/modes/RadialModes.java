@@ -24,8 +24,8 @@ import org.apache.commons.math3.special.BesselJ;
  * J_1^2(z))\), \(\int_0^R J_0(\mu r) r\,dr = R J_1(z)/\mu\); sphere \(\int_0^R X^2 r^2 dr =
  * (R/2 - \sin 2z/(4\mu))/\mu^2\), \(\int_0^R X r^2 dr = (\sin z - z\cos z)/\mu^3\).
  *
- * <p>These are the modes of the radial oracle to come; the series solver for these geometries is not
- * in this version.
+ * <p>The cylinder's and (for a flux surface or a small Biot number) the sphere's series in
+ * {@code RadialSolver} use these modes.
  *
  * @since 0.1
  */
