@@ -38,7 +38,11 @@ import java.util.Map;
  * <p>Bounds: every truncation is bounded rigorously from \(|G_m| \le \|G\|/\|X_m\|\) and
  * \(|c_J| \le (\|g\| + \|U\|)/\|X_J\|\) (Cauchy-Schwarz), \(|X| \le 1\), \(\mu_j \ge j\pi/L\), and
  * geometric or Gaussian sums; the projections' quadrature error is measured against a rule 25 % finer
- * (times 10); rounding is 16 ulps of the sum of magnitudes. This version takes source and face data
+ * (times 10); rounding is 16 ulps of the sum of magnitudes. A rectangle's side with smooth data also
+ * gets the integration-by-parts bound \(|\langle G, X_j\rangle| \le V/\mu_j\), V = |G(0)| + |G(L)| +
+ * 2 \(\int|G'|\) with the integral measured on a 2048-point rule: that part rests on the smoothness of
+ * the data (expressions that may be non-smooth keep the Cauchy-Schwarz bound alone) and is checked by
+ * tests near the sides, not proved. This version takes source and face data
  * constant in time, a source varying along one axis at most, and not every face insulated or
  * flux-driven; it refuses the rest (UNSUPPORTED), and points nearer to a face with data than its series
  * can reach (TOO_MANY_MODES), except on Dirichlet faces, where u is the data.
