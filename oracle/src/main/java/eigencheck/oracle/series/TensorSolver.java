@@ -75,6 +75,7 @@ public final class TensorSolver implements SpatialSolver {
     private final Expression initial;
     private final int transientCap;
     private final double timeVariation;
+    private final double shift;
     private Modal modal;
 
     public TensorSolver(Problem problem, double timeHorizon, double tolerance) {
@@ -166,6 +167,7 @@ public final class TensorSolver implements SpatialSolver {
             }
         }
         this.timeVariation = variation;
+        this.shift = shiftOf();
         this.initial = problem.initial();
         this.scale = scaleOf(problem);
         for (int i = 0; i < d; i++) {
@@ -370,6 +372,44 @@ public final class TensorSolver implements SpatialSolver {
     private double faceData(int axis, int side, double[] point) {
         double g = valueAt(data[axis][side], point);
         return type[axis][side] == ROBIN ? h[axis][side] * g : g;
+    }
+
+    /**
+     * The data the series solve, of u - c with the constant shift c: a Dirichlet side's u - c, a
+     * convective side's h (u_amb - c), a flux side's q unchanged.
+     */
+    private double shiftedData(int axis, int side, double[] point) {
+        double g = valueAt(data[axis][side], point);
+        return switch (type[axis][side]) {
+            case DIRICHLET -> g - shift;
+            case ROBIN -> h[axis][side] * (g - shift);
+            default -> g;
+        };
+    }
+
+    /**
+     * c: the common ambient when every convective side has the same constant ambient (then those sides
+     * carry no data for the series, and points on them are certified), else 0.
+     */
+    private double shiftOf() {
+        double c = Double.NaN;
+        for (int i = 0; i < d; i++) {
+            for (int s = 0; s < 2; s++) {
+                if (type[i][s] == ROBIN) {
+                    Expression e = data[i][s];
+                    if (!e.isConstant()) {
+                        return 0;
+                    }
+                    double v = e.value(new double[e.variables().size()]);
+                    if (Double.isNaN(c)) {
+                        c = v;
+                    } else if (v != c) {
+                        return 0;
+                    }
+                }
+            }
+        }
+        return Double.isNaN(c) ? 0 : c;
     }
 
     private double scaleOf(Problem problem) {
@@ -581,9 +621,9 @@ public final class TensorSolver implements SpatialSolver {
                 integral += rule[1][q] * Math.abs(g);
             }
             point[t] = 0;
-            double g0 = faceData(axis, side, point) - sourcePart(axis, side, point);
+            double g0 = shiftedData(axis, side, point) - sourcePart(axis, side, point);
             point[t] = len[t];
-            double gL = faceData(axis, side, point) - sourcePart(axis, side, point);
+            double gL = shiftedData(axis, side, point) - sourcePart(axis, side, point);
             double v = Math.abs(g0) + Math.abs(gL) + 2 * integral;
             return Double.isFinite(v) ? v : Double.NaN;
         }
@@ -648,7 +688,7 @@ public final class TensorSolver implements SpatialSolver {
                 this.size = size.clone();
                 double[] base = new double[d];
                 base[axis] = side == 0 ? 0 : len[axis];
-                double[][] p = project(point -> faceData(axis, side, point) - sourcePart(axis, side, point), tangential,
+                double[][] p = project(point -> shiftedData(axis, side, point) - sourcePart(axis, side, point), tangential,
                     this.size, base);
                 norm = p[1][1];
                 coef = p[0];
@@ -981,7 +1021,7 @@ public final class TensorSolver implements SpatialSolver {
 
         Modal(int[] m) {
             this.m = m;
-            double[][] g = project(point -> valueAt(initial, point), allAxes(), m, new double[d]);
+            double[][] g = project(point -> valueAt(initial, point) - shift, allAxes(), m, new double[d]);
             c = g[0];
             double err = g[1][0];
             double uNorm = 0;
@@ -1290,8 +1330,8 @@ public final class TensorSolver implements SpatialSolver {
             if (onFace != null) {
                 return onFace;
             }
-            double value = 0;
-            double bound = timeVariation;
+            double value = shift;
+            double bound = timeVariation + 2 * EPS * Math.abs(shift);
             double[] bounds = new double[2];
             for (int i = 0; i < d; i++) {
                 if (sourceSlices[i] != null) {
@@ -1363,8 +1403,8 @@ public final class TensorSolver implements SpatialSolver {
                 throw new OracleException(Reason.UNSUPPORTED, "oracle: the cell average at t = 0 is that of the"
                     + " initial temperature; ask for t > 0");
             }
-            double value = 0;
-            double bound = timeVariation;
+            double value = shift;
+            double bound = timeVariation + 2 * EPS * Math.abs(shift);
             double[] bounds = new double[2];
             for (int i = 0; i < d; i++) {
                 if (sourceSlices[i] != null) {

@@ -176,6 +176,45 @@ class RectangleTest {
     }
 
     @Test
+    void pointsOnConvectiveSidesWithACommonAmbientAreCertified() {
+        // u = 20 + 80 exp(-alpha lambda t) X(x) Y(y), X the first Robin-Robin mode and Y the first Dirichlet-Robin
+        // mode: one decaying mode over the common ambient 20 (separation of variables, common practice). Every
+        // convective side has the ambient 20, so the series solve u - 20 with no side data and points on the
+        // convective sides are certified.
+        double h = 30;
+        double k = 2;
+        double lx = 0.4;
+        double ly = 0.3;
+        double mu = eigencheck.oracle.modes.SlabModes.root(1, h / k * lx, h / k * lx) / lx;
+        double nu = eigencheck.oracle.modes.SlabModes.root(1, Double.POSITIVE_INFINITY, h / k * ly) / ly;
+        double phase = Math.atan2(mu, h / k);
+        double alpha = k / 5.0;
+        String u = "20 + 80*exp(-" + alpha * (mu * mu + nu * nu) + "*t)*sin(" + mu + "*x + " + phase + ")*sin(" + nu
+            + "*y)";
+        Expression exact = xy(u);
+        Map<Side, Manufactured.Face> kinds = new EnumMap<>(Side.class);
+        kinds.put(Side.XMIN, Manufactured.Face.robin(h));
+        kinds.put(Side.XMAX, Manufactured.Face.robin(h));
+        kinds.put(Side.YMIN, Manufactured.Face.dirichlet());
+        kinds.put(Side.YMAX, Manufactured.Face.robin(h));
+        Problem derived = Manufactured.cartesian(exact, new Rectangle(lx, ly), new Material(k, 5), kinds);
+        // the derived ambients are 20 up to rounding: state them exactly, as a user would
+        Map<Side, BoundaryCondition> faces = new EnumMap<>(Side.class);
+        faces.put(Side.XMIN, new BoundaryCondition.Robin(h, xy("20")));
+        faces.put(Side.XMAX, new BoundaryCondition.Robin(h, xy("20")));
+        faces.put(Side.YMIN, new BoundaryCondition.Dirichlet(xy("20")));
+        faces.put(Side.YMAX, new BoundaryCondition.Robin(h, xy("20")));
+        Problem p = new Problem(derived.domain(), derived.material(), derived.initial(), xy("0"), faces);
+        Oracle o = Oracle.prepare(p, 1, 1e-10);
+        for (double[] q : new double[][] {{0, 0.1}, {lx, 0.2}, {0.1, ly}, {0, ly}, {lx, 0.05}, {0.2, 0.15}}) {
+            for (double t : new double[] {0.05, 0.5}) {
+                assertWithin(exact.value(q[0], q[1], t), o.temperature(q, t), 1e-10 * o.temperatureScale(),
+                    "on the side at " + q[0] + ", " + q[1] + ", t = " + t);
+            }
+        }
+    }
+
+    @Test
     void additiveSourceAlongBothAxes() {
         // u = 2 + sin(pi x) + y^3: Q = k (pi^2 sin(pi x) - 6 y), a sum of one-coordinate terms (calculus)
         Expression exact = xy("2 + sin(pi*x) + y^3");
