@@ -100,7 +100,12 @@ final class CompareCommand implements Callable<Integer> {
         if (slab) {
             checkAxis(f, axisIndex);
         }
-        Oracle oracle = Oracle.prepare(problem, t, tolerance);
+        Oracle oracle;
+        try {
+            oracle = Oracle.prepare(problem, t, tolerance);
+        } catch (OracleException e) {
+            throw new OracleException(e.reason(), problemFile + ": " + e.getMessage());
+        }
         eigencheck.suites.norms.Reference reference = slab ? new SlabReference(oracle, t, axisIndex)
             : eigencheck.suites.SuiteRunner.referenceOf(oracle, t);
         String name = fieldName(f);

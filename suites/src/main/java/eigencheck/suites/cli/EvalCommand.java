@@ -73,7 +73,12 @@ final class EvalCommand implements Callable<Integer> {
             horizon = Math.max(horizon, t);
         }
         long read = System.nanoTime();
-        Oracle oracle = Oracle.prepare(problem, horizon, tolerance);
+        Oracle oracle;
+        try {
+            oracle = Oracle.prepare(problem, horizon, tolerance);
+        } catch (OracleException e) {
+            throw new OracleException(e.reason(), problemFile + ": " + e.getMessage());
+        }
         long prepared = System.nanoTime();
         int n = points.t.length;
         double[] value = new double[n];
