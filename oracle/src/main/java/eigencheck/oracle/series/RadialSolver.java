@@ -332,16 +332,16 @@ public final class RadialSolver implements SpatialSolver {
     @Override
     public Slice at(double t) {
         if (steady) {
-            return new CylinderSlice(Double.POSITIVE_INFINITY);
+            return new RadialSlice(Double.POSITIVE_INFINITY);
         }
         if (!(t >= 0 && t <= horizon * (1 + 1e-12))) {
             throw new OracleException(Reason.OUTSIDE_TIME_RANGE, "oracle: t = " + t + " s is outside [0, " + horizon
                 + "] s, the range the oracle was prepared for");
         }
-        return new CylinderSlice(t);
+        return new RadialSlice(t);
     }
 
-    private final class CylinderSlice implements Slice {
+    private final class RadialSlice implements Slice {
         private final double t;
         private final int m;
         private final double[] weighted;
@@ -349,7 +349,7 @@ public final class RadialSolver implements SpatialSolver {
         private final double bound;
         private final double gradientBound;
 
-        CylinderSlice(double t) {
+        RadialSlice(double t) {
             this.t = t;
             if (t == 0 || t == Double.POSITIVE_INFINITY) {
                 m = 0;

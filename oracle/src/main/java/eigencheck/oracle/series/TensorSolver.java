@@ -581,7 +581,7 @@ public final class TensorSolver implements SpatialSolver {
                 }
             }
             cap = new int[d - 1];
-            java.util.Arrays.fill(cap, d == 2 ? 8192 : 160);
+            java.util.Arrays.fill(cap, d == 2 ? 8192 : 256);
             int[] start = new int[d - 1];
             java.util.Arrays.fill(start, d == 2 ? 256 : 32);
             Table first = new Table(start);

@@ -62,8 +62,14 @@ class BoxTest {
                 assertWithin(d, g[c], 1e-9 * o.temperatureScale() / lx, "du/d" + names[c]);
             }
         }
-        // on the Dirichlet face x = 0 the value is the data itself; nearer than about 0.1 L to a face with data
-        // the face series of the box needs more than its 160 x 160 modes and the oracle refuses (TOO_MANY_MODES)
+        // on the Dirichlet face x = 0 the value is the data itself; nearer than about 0.07 L to a face with data
+        // the face series of the box needs more than its 256 x 256 modes and the oracle refuses (TOO_MANY_MODES)
+        double[] near = {0.5 * lx, 0.5 * ly, 0.09 * lz};
+        assertWithin(exact.value(near[0], near[1], near[2], 0.5), o.temperature(near, 0.5), 1e-9 * o.temperatureScale(),
+            "0.09 of the edge from z = 0");
+        eigencheck.oracle.OracleException refused = org.junit.jupiter.api.Assertions.assertThrows(
+            eigencheck.oracle.OracleException.class, () -> o.temperature(new double[] {0.5 * lx, 0.5 * ly, 0.001}, 0.5));
+        assertEquals(eigencheck.oracle.OracleException.Reason.TOO_MANY_MODES, refused.reason());
         Evaluation face = o.temperature(new double[] {0, 0.3, 0.2}, 0.5);
         assertWithin(exact.value(0, 0.3, 0.2, 0.5), face, 1e-14 * o.temperatureScale(), "on the face");
         assertTrue(o.modesUsed(0.02) > 1);
