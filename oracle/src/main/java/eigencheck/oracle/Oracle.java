@@ -393,23 +393,11 @@ public final class Oracle {
             evaluatePoints(x, t, value, bound, null, null);
             return;
         }
-        Integer[] order = new Integer[n];
-        for (int i = 0; i < n; i++) {
-            order[i] = i;
-        }
-        Arrays.sort(order, (a, b) -> Double.compare(t[a], t[b]));
-        // runs of equal time
-        int[] starts = new int[n + 1];
-        int runs = 0;
-        for (int i = 0; i < n; i++) {
-            if (i == 0 || Double.compare(t[order[i]], t[order[i - 1]]) != 0) {
-                starts[runs++] = i;
-            }
-        }
-        starts[runs] = n;
+        Integer[] order = byTime(t);
+        int[] starts = runs(order, t); // runs of equal time
         int[] failed = {Integer.MAX_VALUE};
         OracleException[] failure = new OracleException[1];
-        final int runCount = runs;
+        final int runCount = starts.length - 1;
         IntStream.range(0, runCount).parallel().forEach(r -> {
             int from = starts[r];
             int to = starts[r + 1];

@@ -193,7 +193,7 @@ public final class SuiteFile {
                 return new Object[] {null, surface, lengths};
             }
             Map<eigencheck.oracle.problem.Side, eigencheck.oracle.problem.Manufactured.Face> kinds =
-                faceKinds(c, o.fields().get("boundary"), sideNames);
+                faceKinds(c, o.fields().get("boundary"), sideNames, "{xmin: dirichlet | neumann | {robin: h}, ...}");
             if (kinds == null) {
                 return null;
             }
@@ -205,54 +205,18 @@ public final class SuiteFile {
         if (boundary == null) {
             return null;
         }
-        Map<String, Node> fields = new LinkedHashMap<>();
-        fields.put("domain", domain);
-        fields.put("material", material);
-        fields.put("initial", new Node.Scalar(o.location(), "0", false));
-        Map<String, Node> faces = new LinkedHashMap<>();
-        Map<String, InputLocation> faceKeys = new LinkedHashMap<>();
-        faces.put("xmin", new Node.Obj(o.location(), Map.of("dirichlet", new Node.Scalar(o.location(), "0", false)),
-            Map.of("dirichlet", o.location())));
-        faces.put("xmax", faces.get("xmin"));
-        faceKeys.put("xmin", o.location());
-        faceKeys.put("xmax", o.location());
-        fields.put("boundary", new Node.Obj(o.location(), faces, faceKeys));
-        Problem carrier;
-        try {
-            carrier = ProblemFile.fromTree(new Node.Obj(o.location(), fields, Map.of()));
-        } catch (InputException e) {
-            for (InputException.Problem q : e.problems()) {
-                c.problem(q.cause(), q.location(), q.message());
-            }
+        List<String> slabSides = List.of("xmin", "xmax");
+        Problem carrier = carrier(c, o, domain, material, slabSides);
+        if (carrier == null) {
             return null;
         }
-        Node.Obj b = c.object(boundary, "{xmin: dirichlet | neumann | {robin: h}, xmax: ...}");
-        if (b == null) {
-            return null;
-        }
-        c.allowOnly(b, List.of("xmin", "xmax"));
-        eigencheck.oracle.problem.Manufactured.Face[] kinds = new eigencheck.oracle.problem.Manufactured.Face[2];
-        String[] sides = {"xmin", "xmax"};
-        for (int i = 0; i < 2; i++) {
-            Node face = c.required(b, sides[i], "dirichlet, neumann or {robin: h}");
-            if (face instanceof Node.Scalar s && "dirichlet".equals(s.value())) {
-                kinds[i] = eigencheck.oracle.problem.Manufactured.Face.dirichlet();
-            } else if (face instanceof Node.Scalar s && "neumann".equals(s.value())) {
-                kinds[i] = eigencheck.oracle.problem.Manufactured.Face.neumann();
-            } else if (face instanceof Node.Obj r && r.fields().containsKey("robin")) {
-                double h = c.positive(r.fields().get("robin"), "the heat transfer coefficient h in W/(m^2 K)");
-                if (!Double.isNaN(h)) {
-                    kinds[i] = eigencheck.oracle.problem.Manufactured.Face.robin(h);
-                }
-            } else if (face != null) {
-                c.problem(Cause.INVALID_VALUE, face.location(), "a face kind is dirichlet, neumann or {robin: h}");
-            }
-        }
-        if (kinds[0] == null || kinds[1] == null) {
+        Map<eigencheck.oracle.problem.Side, eigencheck.oracle.problem.Manufactured.Face> kinds = faceKinds(c, boundary,
+            slabSides, "{xmin: dirichlet | neumann | {robin: h}, xmax: ...}");
+        if (kinds == null) {
             return null;
         }
         Problem derived = eigencheck.oracle.problem.Manufactured.slab(u, (Slab) carrier.domain(), carrier.material(),
-            kinds[0], kinds[1]);
+            kinds.get(eigencheck.oracle.problem.Side.XMIN), kinds.get(eigencheck.oracle.problem.Side.XMAX));
         return new Object[] {derived, u, new double[] {((Slab) carrier.domain()).length()}};
     }
 
@@ -283,8 +247,8 @@ public final class SuiteFile {
 
     /** {side: dirichlet | neumann | {robin: h}} for every side, or null after reporting. */
     private static Map<eigencheck.oracle.problem.Side, eigencheck.oracle.problem.Manufactured.Face> faceKinds(
-            Checker c, Node boundary, List<String> sideNames) {
-        Node.Obj b = c.object(boundary, "{xmin: dirichlet | neumann | {robin: h}, ...}");
+            Checker c, Node boundary, List<String> sideNames, String hint) {
+        Node.Obj b = c.object(boundary, hint);
         if (b == null) {
             return null;
         }
