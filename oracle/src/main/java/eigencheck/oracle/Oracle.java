@@ -243,6 +243,8 @@ public final class Oracle {
         int runCount = starts.length - 1;
         int[] failed = {Integer.MAX_VALUE};
         OracleException[] failure = new OracleException[1];
+        int[] first = runCount > 1 && spatial.steadyPart() != null ? firstOccurrence(points, dim, n) : null;
+        Evaluation[] shared = first == null ? null : sharedSteadyPart(points, dim, first);
         IntStream.range(0, runCount).parallel().forEach(r -> {
             int from = starts[r];
             int to = starts[r + 1];
@@ -261,7 +263,8 @@ public final class Oracle {
                 for (int i = lo; i < hi; i++) {
                     int p = order[i];
                     try {
-                        Evaluation ev = slice.temperature(points, p * dim);
+                        Evaluation ev = shared == null ? slice.temperature(points, p * dim)
+                            : slice.temperature(points, p * dim, shared[first[p]]);
                         value[p] = ev.value();
                         bound[p] = ev.bound();
                         if (gradient != null) {
@@ -276,6 +279,69 @@ public final class Oracle {
         if (failure[0] != null) {
             throw new OracleException(failure[0].reason(), "point " + failed[0] + ": " + failure[0].getMessage());
         }
+    }
+
+    /**
+     * The time-independent part of u for each distinct point, computed once, when the points recur
+     * at several times and the solver has such a part; null otherwise. An entry is null where that
+     * part cannot be certified on its own (a point on a Dirichlet face, say): the slice then answers
+     * alone and reports any refusal itself.
+     */
+    private Evaluation[] sharedSteadyPart(double[] points, int dim, int[] first) {
+        SpatialSolver.Steady part = spatial.steadyPart();
+        int n = first.length;
+        int[] distinct = IntStream.range(0, n).filter(p -> first[p] == p).toArray();
+        if (part == null || distinct.length == n) {
+            return null;
+        }
+        Evaluation[] shared = new Evaluation[n];
+        IntStream.range(0, distinct.length).parallel().forEach(i -> {
+            int q = distinct[i];
+            try {
+                shared[q] = part.temperature(points, q * dim);
+            } catch (OracleException refused) {
+                shared[q] = null;
+            }
+        });
+        return shared;
+    }
+
+    /** For each point, the lowest index with bit-identical coordinates (open addressing on the bits). */
+    static int[] firstOccurrence(double[] points, int dim, int n) {
+        int size = Integer.highestOneBit(Math.max(2, 2 * n - 1)) << 1;
+        int[] table = new int[size];
+        Arrays.fill(table, -1);
+        int[] first = new int[n];
+        for (int p = 0; p < n; p++) {
+            long h = 1125899906842597L;
+            for (int i = 0; i < dim; i++) {
+                h = 31 * h + Double.doubleToLongBits(points[p * dim + i]);
+            }
+            int slot = (int) (h ^ (h >>> 29) ^ (h >>> 47)) & (size - 1);
+            while (true) {
+                int q = table[slot];
+                if (q < 0) {
+                    table[slot] = p;
+                    first[p] = p;
+                    break;
+                }
+                if (sameCoordinates(points, dim, p, q)) {
+                    first[p] = q;
+                    break;
+                }
+                slot = (slot + 1) & (size - 1);
+            }
+        }
+        return first;
+    }
+
+    private static boolean sameCoordinates(double[] points, int dim, int p, int q) {
+        for (int i = 0; i < dim; i++) {
+            if (Double.doubleToLongBits(points[p * dim + i]) != Double.doubleToLongBits(points[q * dim + i])) {
+                return false;
+            }
+        }
+        return true;
     }
 
     private static Integer[] byTime(double[] t) {

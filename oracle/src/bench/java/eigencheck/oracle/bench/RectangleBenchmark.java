@@ -28,9 +28,10 @@ import org.openjdk.jmh.annotations.Warmup;
  * temperatures relative to the ambient) with a heat source peaked along x and a non-uniform initial
  * temperature, at 10^5 points (cell centres of a 400 x 250 grid) and 10 times, to tolerance 1e-8.
  * Target (issue 5): under 3 s on 2 cores. The source's part gives the y sides data h P(x), so each y
- * side carries an elliptic series, which needs thousands of modes for the cell centres nearest to it;
- * the variant {@code insulatedSides} makes the y sides insulated (no face series: the source part and
- * the transient alone).
+ * side carries an elliptic series, which needs thousands of modes for the cell centres nearest to it.
+ * That series does not change in time: one bulk call computes it once per distinct point and shares it
+ * among the 10 times. The variant {@code insulatedSides} makes the y sides insulated (no face series:
+ * the source part and the transient alone).
  *
  * <pre>mvn -q -pl oracle -Pbenchmark test-compile exec:exec -Dbench.args="RectangleBenchmark"</pre>
  */

@@ -23,6 +23,20 @@ public interface SpatialSolver {
     /** The state at time t. @throws eigencheck.oracle.OracleException if t is outside the horizon */
     Slice at(double t);
 
+    /**
+     * The part of u that does not change in time (the steady source and face parts), which slices
+     * at different times may share for the same point; null when there is none worth sharing.
+     */
+    default Steady steadyPart() {
+        return null;
+    }
+
+    /** The time-independent part of u; see {@link #steadyPart()}. */
+    interface Steady {
+        /** That part at the point, with its bound; not checked against the tolerance alone. */
+        Evaluation temperature(double[] p, int offset);
+    }
+
     /** Everything that depends on t alone. */
     interface Slice {
         /** Modes summed by the time-dependent part at this time (0 for a steady problem). */
@@ -30,6 +44,14 @@ public interface SpatialSolver {
 
         /** u at the point {@code p[offset .. offset + dimension)}, with its bound. */
         Evaluation temperature(double[] p, int offset);
+
+        /**
+         * As {@link #temperature(double[], int)}, given {@code steady}, what {@link #steadyPart()}
+         * returned for the same point (null: compute it).
+         */
+        default Evaluation temperature(double[] p, int offset, Evaluation steady) {
+            return temperature(p, offset);
+        }
 
         /**
          * The gradient of u at the point into {@code out[outOffset ..]}; returns the bound on each

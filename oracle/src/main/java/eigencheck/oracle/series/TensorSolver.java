@@ -1199,6 +1199,35 @@ public final class TensorSolver implements SpatialSolver {
         return modal;
     }
 
+    @Override
+    public Steady steadyPart() {
+        return faces.isEmpty() ? null : this::steadyTemperature;
+    }
+
+    /**
+     * The shift, the source's slab parts and the face series at a point, with their bounds: what
+     * every time shares. A point on a Dirichlet face is answered by the slices from the data.
+     */
+    private Evaluation steadyTemperature(double[] p, int o) {
+        checkPoint(p, o);
+        double value = shift;
+        double bound = timeVariation + 2 * EPS * Math.abs(shift);
+        double[] bounds = new double[2];
+        for (int i = 0; i < d; i++) {
+            if (sourceSlices[i] != null) {
+                Evaluation e = sourceSlices[i].temperature(p[o + i]);
+                value += e.value();
+                bound += e.bound();
+            }
+        }
+        double faceBudget = tolerance * scale / (4 * faces.size());
+        for (Face f : faces) {
+            value += f.add(p, o, faceBudget, null, bounds);
+            bound += bounds[0];
+        }
+        return new Evaluation(value, bound);
+    }
+
     // ---------------------------------------------------------------- slices
 
     @Override
@@ -1347,6 +1376,11 @@ public final class TensorSolver implements SpatialSolver {
 
         @Override
         public Evaluation temperature(double[] p, int o) {
+            return temperature(p, o, null);
+        }
+
+        @Override
+        public Evaluation temperature(double[] p, int o, Evaluation steadyPart) {
             checkPoint(p, o);
             if (t == 0) {
                 return initialValue(p, o);
@@ -1355,20 +1389,9 @@ public final class TensorSolver implements SpatialSolver {
             if (onFace != null) {
                 return onFace;
             }
-            double value = shift;
-            double bound = timeVariation + 2 * EPS * Math.abs(shift);
-            double[] bounds = new double[2];
-            for (int i = 0; i < d; i++) {
-                if (sourceSlices[i] != null) {
-                    Evaluation e = sourceSlices[i].temperature(p[o + i]);
-                    value += e.value();
-                    bound += e.bound();
-                }
-            }
-            for (Face f : faces) {
-                value += f.add(p, o, budget / (4 * faces.size()), null, bounds);
-                bound += bounds[0];
-            }
+            Evaluation part = steadyPart != null ? steadyPart : steadyTemperature(p, o);
+            double value = part.value();
+            double bound = part.bound();
             if (weighted != null) {
                 double[] vb = modalSum(p, o, null);
                 value += vb[0];

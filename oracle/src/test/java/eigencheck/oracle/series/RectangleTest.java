@@ -176,6 +176,57 @@ class RectangleTest {
     }
 
     @Test
+    void pointsRepeatedAtSeveralTimesShareTheSteadyPartExactly() {
+        // the same manufactured problem as above; the bulk call computes the face series once per distinct
+        // point and must give, bit for bit, what one point at a time gives, including a point on a Dirichlet
+        // side (answered from the data) and a point too near a side (refused with its own index)
+        double k = 1;
+        double h = 4;
+        double ly = 0.7;
+        double nu = eigencheck.oracle.modes.SlabModes.root(1, 0, h * ly) / ly;
+        double lambda = Math.PI * Math.PI + nu * nu;
+        Expression exact = xy("1 + 3*x*(1-x) + x^2 - y^2 + exp(-" + lambda + "*t)*sin(pi*x)*cos(" + nu + "*y)");
+        Map<Side, Manufactured.Face> kinds = new EnumMap<>(Side.class);
+        kinds.put(Side.XMIN, Manufactured.Face.dirichlet());
+        kinds.put(Side.XMAX, Manufactured.Face.dirichlet());
+        kinds.put(Side.YMIN, Manufactured.Face.neumann());
+        kinds.put(Side.YMAX, Manufactured.Face.robin(h));
+        Problem p = Manufactured.cartesian(exact, new Rectangle(1, ly), Material.ofDiffusivity(k), kinds);
+        Oracle o = Oracle.prepare(p, 2, 1e-10);
+        double[][] distinct = {{0.3, 0.2}, {0, 0.4}, {0.71, 0.55}, {0.5, 0.01 * ly}, {0.95, 0.35}};
+        double[] times = {1.5, 0.01, 0.4, 0, 2};
+        int n = distinct.length * times.length;
+        double[] points = new double[2 * n];
+        double[] t = new double[n];
+        for (int i = 0; i < n; i++) {
+            // points and times interleaved out of order, as an eval file may list them
+            int q = (i * 3) % distinct.length;
+            points[2 * i] = distinct[q][0];
+            points[2 * i + 1] = distinct[q][1];
+            t[i] = times[(i / distinct.length + q) % times.length];
+        }
+        double[] value = new double[n];
+        double[] bound = new double[n];
+        o.evaluatePoints(points, t, value, bound, null, null);
+        for (int i = 0; i < n; i++) {
+            double[] q = {points[2 * i], points[2 * i + 1]};
+            Evaluation alone = o.temperature(q, t[i]);
+            assertEquals(alone.value(), value[i], 0, "u at " + q[0] + ", " + q[1] + ", t = " + t[i]);
+            assertEquals(alone.bound(), bound[i], 0, "bound at " + q[0] + ", " + q[1] + ", t = " + t[i]);
+            assertWithin(exact.value(q[0], q[1], t[i]), alone, 1e-10 * o.temperatureScale(), "u at point " + i);
+        }
+        // a point 1e-7 of the edge from the Dirichlet side x = 0 cannot be certified: the bulk call names it
+        double[] withNear = java.util.Arrays.copyOf(points, 2 * n + 2);
+        withNear[2 * n] = 1e-7;
+        withNear[2 * n + 1] = 0.3;
+        double[] tNear = java.util.Arrays.copyOf(t, n + 1);
+        tNear[n] = 0.4;
+        OracleException refused = assertThrows(OracleException.class,
+            () -> o.evaluatePoints(withNear, tNear, new double[n + 1], new double[n + 1], null, null));
+        assertTrue(refused.getMessage().startsWith("point " + n + ":"), refused.getMessage());
+    }
+
+    @Test
     void pointsOnConvectiveSidesWithACommonAmbientAreCertified() {
         // u = 20 + 80 exp(-alpha lambda t) X(x) Y(y), X the first Robin-Robin mode and Y the first Dirichlet-Robin
         // mode: one decaying mode over the common ambient 20 (separation of variables, common practice). Every
