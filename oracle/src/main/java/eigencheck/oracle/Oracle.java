@@ -244,7 +244,7 @@ public final class Oracle {
         int[] failed = {Integer.MAX_VALUE};
         OracleException[] failure = new OracleException[1];
         int[] first = runCount > 1 && spatial.steadyPart() != null ? firstOccurrence(points, dim, n) : null;
-        Evaluation[] shared = first == null ? null : sharedSteadyPart(points, dim, first);
+        Evaluation[][] shared = first == null ? null : sharedSteadyPart(points, dim, first);
         IntStream.range(0, runCount).parallel().forEach(r -> {
             int from = starts[r];
             int to = starts[r + 1];
@@ -287,14 +287,14 @@ public final class Oracle {
      * part cannot be certified on its own (a point on a Dirichlet face, say): the slice then answers
      * alone and reports any refusal itself.
      */
-    private Evaluation[] sharedSteadyPart(double[] points, int dim, int[] first) {
+    private Evaluation[][] sharedSteadyPart(double[] points, int dim, int[] first) {
         SpatialSolver.Steady part = spatial.steadyPart();
         int n = first.length;
         int[] distinct = IntStream.range(0, n).filter(p -> first[p] == p).toArray();
         if (part == null || distinct.length == n) {
             return null;
         }
-        Evaluation[] shared = new Evaluation[n];
+        Evaluation[][] shared = new Evaluation[n][];
         IntStream.range(0, distinct.length).parallel().forEach(i -> {
             int q = distinct[i];
             try {

@@ -31,10 +31,10 @@ public interface SpatialSolver {
         return null;
     }
 
-    /** The time-independent part of u; see {@link #steadyPart()}. */
+    /** The time-independent parts of u; see {@link #steadyPart()}. */
     interface Steady {
-        /** That part at the point, with its bound; not checked against the tolerance alone. */
-        Evaluation temperature(double[] p, int offset);
+        /** Those parts at the point, each with its bound, in the solver's own order; not checked against the tolerance. */
+        Evaluation[] temperature(double[] p, int offset);
     }
 
     /** Everything that depends on t alone. */
@@ -49,7 +49,7 @@ public interface SpatialSolver {
          * As {@link #temperature(double[], int)}, given {@code steady}, what {@link #steadyPart()}
          * returned for the same point (null: compute it).
          */
-        default Evaluation temperature(double[] p, int offset, Evaluation steady) {
+        default Evaluation temperature(double[] p, int offset, Evaluation[] steady) {
             return temperature(p, offset);
         }
 

@@ -76,6 +76,13 @@ public final class TensorSolver implements SpatialSolver {
     private final int transientCap;
     private final double timeVariation;
     private final double shift;
+    /** The level b(t) shared by every temperature and ambient, or null when the data are constant in time. */
+    private final CommonLevel level;
+    /** P, with -alpha Laplace P = 1 under the homogeneous conditions: the lag behind a moving level. */
+    private final Slice lag;
+    private final int lagFaces;
+    /** P as one series with closed-form profiles (rectangle): for points P's face series cannot reach. */
+    private final LagSeries lagSeries;
     private Modal modal;
 
     public TensorSolver(Problem problem, double timeHorizon, double tolerance) {
@@ -98,13 +105,19 @@ public final class TensorSolver implements SpatialSolver {
         boolean allFlux = true;
         double variation = 0;
         axes = new AxisModes[d];
+        Expression levelExpression = steady ? null : levelOf(problem);
         for (int i = 0; i < d; i++) {
             double[] hk = new double[2];
             for (int s = 0; s < 2; s++) {
                 BoundaryCondition c = problem.condition(SIDES[i][s]);
-                double v = requireConstantInTime(c.data(), "boundary." + SIDES[i][s].key(), timeHorizon);
-                variation += 2 * v * (c instanceof BoundaryCondition.Neumann ? lengthScale / k : 1);
-                data[i][s] = c.data();
+                if (levelExpression != null && !(c instanceof BoundaryCondition.Neumann)) {
+                    variation += 2 * requireLevel(c.data(), levelExpression, i, s, timeHorizon);
+                    data[i][s] = c.data().variables().contains("t") ? c.data().substitute("t", 0) : c.data();
+                } else {
+                    double v = requireConstantInTime(c.data(), "boundary." + SIDES[i][s].key(), timeHorizon);
+                    variation += 2 * v * (c instanceof BoundaryCondition.Neumann ? lengthScale / k : 1);
+                    data[i][s] = c.data();
+                }
                 if (c instanceof BoundaryCondition.Dirichlet) {
                     type[i][s] = DIRICHLET;
                     hk[s] = Double.POSITIVE_INFINITY;
@@ -127,7 +140,8 @@ public final class TensorSolver implements SpatialSolver {
         }
         variation += 2 * requireConstantInTime(problem.source(), "source", timeHorizon) * lengthScale * lengthScale / k;
         this.initial = problem.initial();
-        this.scale = scaleOf(problem);
+        this.level = levelExpression == null ? null : new CommonLevel(levelExpression, timeHorizon, alpha, axes);
+        this.scale = scaleOf(problem) + (level == null ? 0 : level.levelMax);
         Expression q = problem.source();
         // a source that is rounding noise (a manufactured source whose terms cancel) is taken as zero: its
         // sampled size, doubled, joins the bound; fitting the noise would only chase rounding
@@ -178,6 +192,29 @@ public final class TensorSolver implements SpatialSolver {
         }
         this.timeVariation = variation;
         this.shift = shiftOf();
+        if (level != null && level.slopeMax > 0) {
+            // P's own tolerance: its error, times max|b'|, within an eighth of the budget (P's scale is L^2/alpha)
+            double lagTolerance = tolerance * scale * alpha / (8 * level.slopeMax * lengthScale * lengthScale);
+            TensorSolver p = new TensorSolver(lagProblem(problem), 0, Math.max(1e-14, Math.min(0.25, lagTolerance)));
+            this.lag = p.at(Double.POSITIVE_INFINITY);
+            this.lagFaces = p.dataFaces();
+            if (d == 2) {
+                double[][] hOverK = new double[2][2];
+                for (int i = 0; i < 2; i++) {
+                    for (int s = 0; s < 2; s++) {
+                        hOverK[i][s] = type[i][s] == DIRICHLET ? Double.POSITIVE_INFINITY : type[i][s] == NEUMANN ? 0
+                            : h[i][s] / k;
+                    }
+                }
+                this.lagSeries = new LagSeries(axes, alpha, hOverK);
+            } else {
+                this.lagSeries = null;
+            }
+        } else {
+            this.lag = null;
+            this.lagFaces = 0;
+            this.lagSeries = null;
+        }
         for (int i = 0; i < d; i++) {
             for (int s = 0; s < 2; s++) {
                 Face f = new Face(i, s);
@@ -186,6 +223,91 @@ public final class TensorSolver implements SpatialSolver {
                 }
             }
         }
+    }
+
+    /**
+     * The level b(t) = g(c, t) - g(c, 0) of the first Dirichlet or convective side whose data change in
+     * time, c the side's centre, over the single variable t; null when no such side's data name t.
+     */
+    private Expression levelOf(Problem problem) {
+        for (int i = 0; i < d; i++) {
+            for (int s = 0; s < 2; s++) {
+                BoundaryCondition c = problem.condition(SIDES[i][s]);
+                Expression e = c.data();
+                if (c instanceof BoundaryCondition.Neumann || !e.variables().contains("t") || e.isIndependentOf("t")) {
+                    continue;
+                }
+                for (int j = 0; j < d; j++) {
+                    if (e.variables().contains(NAMES[j])) {
+                        e = e.substitute(NAMES[j], j == i ? (s == 0 ? 0 : len[i]) : len[j] / 2);
+                    }
+                }
+                e = e.over("t");
+                return e.linear(1, Expression.constant(1, "t"), -e.value(0));
+            }
+        }
+        return null;
+    }
+
+    /**
+     * Refuses a Dirichlet or convective side whose data do not change in time by the common level:
+     * g(p, t) - g(p, 0) - b(t) must vanish (to 1e-12 of |g|) at 9^(d-1) points of the side and 16 times.
+     * Returns the largest difference found (temperature units).
+     */
+    private double requireLevel(Expression g, Expression b, int axis, int side, double timeHorizon) {
+        int n = 9;
+        int count = (int) Math.pow(n, d);
+        double[] p = new double[d];
+        double worst = 0;
+        for (int c = 0; c < count; c++) {
+            int rest = c;
+            for (int i = 0; i < d; i++) {
+                p[i] = len[i] * (rest % n) / (n - 1.0);
+                rest /= n;
+            }
+            if (p[axis] != 0) {
+                continue; // one layer of the grid, moved onto the side
+            }
+            p[axis] = side == 0 ? 0 : len[axis];
+            double g0 = valueAt(g, p, 0);
+            for (int j = 1; j <= 16; j++) {
+                double t = timeHorizon * j / 16;
+                double gt = valueAt(g, p, t);
+                double miss = Math.abs(gt - g0 - b.value(t));
+                worst = Math.max(worst, miss);
+                if (miss > 1e-12 * Math.max(1, Math.abs(gt))) {
+                    throw new OracleException(Reason.UNSUPPORTED, "boundary." + SIDES[axis][side].key() + ": changes"
+                        + " in time other than by the level b(t) of the first side that does (at "
+                        + java.util.Arrays.toString(p) + " and t = " + t + " s it is " + gt + ", not " + (g0 + b.value(t))
+                        + "); this version solves rectangles and boxes whose side temperatures and ambients change in"
+                        + " time by one common b(t), constant in time otherwise, with flux data and the source constant"
+                        + " in time; for other time-dependent data use a manufactured solution");
+                }
+            }
+            p[axis] = 0;
+        }
+        return worst;
+    }
+
+    /** The steady problem of P: -k Laplace P = rho c (so -alpha Laplace P = 1), every side's data zero. */
+    private Problem lagProblem(Problem problem) {
+        Map<Side, BoundaryCondition> bc = new EnumMap<>(Side.class);
+        String[] coordinates = java.util.Arrays.copyOf(NAMES, d);
+        String[] withTime = java.util.Arrays.copyOf(NAMES, d + 1);
+        withTime[d] = "t";
+        for (int i = 0; i < d; i++) {
+            for (int s = 0; s < 2; s++) {
+                Expression zero = Expression.constant(0, withTime);
+                bc.put(SIDES[i][s], switch (type[i][s]) {
+                    case DIRICHLET -> new BoundaryCondition.Dirichlet(zero);
+                    case NEUMANN -> new BoundaryCondition.Neumann(zero);
+                    default -> new BoundaryCondition.Robin(h[i][s], zero);
+                });
+            }
+        }
+        Material material = problem.material();
+        return new Problem(problem.domain(), material, Expression.constant(0, coordinates),
+            Expression.constant(material.volumetricHeatCapacity(), withTime), bc, true);
     }
 
     /**
@@ -218,8 +340,9 @@ public final class TensorSolver implements SpatialSolver {
         }
         if (!constant) {
             throw new OracleException(Reason.UNSUPPORTED, field + ": depends on t; this version solves rectangles and"
-                + " boxes whose source and face data are constant in time (the initial temperature may be anything);"
-                + " for time-dependent data use a manufactured solution");
+                + " boxes whose source and flux data are constant in time and whose side temperatures and ambients are"
+                + " constant or move together by one level b(t) (the initial temperature may be anything); for other"
+                + " time-dependent data use a manufactured solution");
         }
         return variation;
     }
@@ -1133,6 +1256,31 @@ public final class TensorSolver implements SpatialSolver {
                 err += tb.error * weightMax;
                 uNorm += tb.norm * tb.profileNorm;
             }
+            if (level != null && level.initialSlope != 0) {
+                // + b'(0) P: P_J = 1_J / lambda_J exactly, and ||P|| <= ||1|| / lambda_min
+                double lambdaMin = 0;
+                double volume = 1;
+                for (int i = 0; i < d; i++) {
+                    axes[i].ensure(m[i]);
+                    lambdaMin += axes[i].mu[0] * axes[i].mu[0];
+                    volume *= len[i];
+                }
+                lambdaMin *= alpha;
+                int[] index = new int[d];
+                for (int cIndex = 0; cIndex < count; cIndex++) {
+                    unflatten(cIndex, m, index);
+                    double one = 1;
+                    double lambda = 0;
+                    for (int i = 0; i < d; i++) {
+                        one *= level.one(i, index[i]);
+                        lambda += axes[i].mu[index[i]] * axes[i].mu[index[i]];
+                    }
+                    if (one != 0) {
+                        c[cIndex] += level.initialSlope * one / (alpha * lambda);
+                    }
+                }
+                uNorm += Math.abs(level.initialSlope) * Math.sqrt(volume) / lambdaMin;
+            }
             error = err;
             double normLower = 1;
             for (int i = 0; i < d; i++) {
@@ -1201,12 +1349,32 @@ public final class TensorSolver implements SpatialSolver {
 
     @Override
     public Steady steadyPart() {
-        return faces.isEmpty() ? null : this::steadyTemperature;
+        if (faces.isEmpty() && lagFaces == 0) {
+            return null;
+        }
+        return (p, o) -> lag == null ? new Evaluation[] {steadyTemperature(p, o)}
+            : new Evaluation[] {steadyTemperature(p, o), lagAt(p, o)};
+    }
+
+    /**
+     * P at a point, within tolerance * scale / (8 max|b'|): by its own solver, or, where that solver's
+     * face series cannot reach (points on or very near a convective side), by {@link LagSeries}.
+     */
+    private Evaluation lagAt(double[] p, int o) {
+        try {
+            return lag.temperature(p, o);
+        } catch (OracleException e) {
+            if (lagSeries == null || (e.reason() != Reason.TOO_MANY_MODES && e.reason() != Reason.NOT_CERTIFIED)) {
+                throw e;
+            }
+            return lagSeries.value(p, o, tolerance * scale / (8 * level.slopeMax));
+        }
     }
 
     /**
      * The shift, the source's slab parts and the face series at a point, with their bounds: what
-     * every time shares. A point on a Dirichlet face is answered by the slices from the data.
+     * every time shares (with P, when the level moves). A point on a Dirichlet face is answered by the
+     * slices from the data.
      */
     private Evaluation steadyTemperature(double[] p, int o) {
         checkPoint(p, o);
@@ -1242,6 +1410,10 @@ public final class TensorSolver implements SpatialSolver {
         return new TensorSlice(t);
     }
 
+    /** A wider box of modal coefficients for gradients, with the bound of what it leaves out. */
+    private record GradientBox(int[] m, double[] weighted, double bound) {
+    }
+
     /** The state at one time. */
     private final class TensorSlice implements Slice {
         private final double t;
@@ -1251,11 +1423,21 @@ public final class TensorSolver implements SpatialSolver {
         private final double modalGradientBound;
         private final int modes;
         private final double budget;
+        private final double levelNow;
+        private final double slopeNow;
+        // the particular part converges more slowly in gradients: a wider box, built on the first request
+        private final int[] transientOnly;
+        private volatile GradientBox gradientBox;
+        private double particularGradientOnValueBox;
 
         TensorSlice(double t) {
             this.t = t;
             this.budget = tolerance * scale;
+            boolean moving = level != null && t > 0 && t < Double.POSITIVE_INFINITY;
+            this.levelNow = moving ? level.level(t) : 0;
+            this.slopeNow = moving ? level.slope(t) : 0;
             if (t == Double.POSITIVE_INFINITY || t == 0) {
+                transientOnly = null;
                 m = null;
                 weighted = null;
                 modalBound = 0;
@@ -1304,9 +1486,16 @@ public final class TensorSolver implements SpatialSolver {
                 }
                 mod = modal(needed);
             }
+            // with a moving level, the particular part's box joins the transient's
+            int[] particular = moving ? level.box(budget / 8, transientCap) : null;
+            int[] transientBox = needed.clone();
+            this.transientOnly = transientBox;
             m = needed.clone();
             int count = 1;
             for (int i = 0; i < d; i++) {
+                if (particular != null) {
+                    m[i] = Math.max(m[i], particular[i]);
+                }
                 count *= m[i];
             }
             modes = count;
@@ -1325,12 +1514,32 @@ public final class TensorSolver implements SpatialSolver {
                 unflatten(c, m, index);
                 double e = 1;
                 int source = 0;
+                boolean inside = true;
                 for (int i = 0; i < d; i++) {
+                    inside &= index[i] < transientBox[i];
+                    if (!inside) {
+                        break;
+                    }
                     e *= decay[i][index[i]];
                     source = source * mod.m[i] + index[i];
                 }
-                weighted[c] = mod.c[source] * e;
-                decaySum += e;
+                if (inside) {
+                    weighted[c] = mod.c[source] * e;
+                    decaySum += e;
+                }
+            }
+            double particularBound = 0;
+            double particularGradientBound = 0;
+            if (particular != null) {
+                double quadrature = level.addParticular(t, m, weighted);
+                // the box is sized on a narrower explicit region; the bounds reported use the widest
+                double[] truncation = level.truncation(m, level.explicitCutoff(true));
+                double maxMuAll = 0;
+                for (int i = 0; i < d; i++) {
+                    maxMuAll = Math.max(maxMuAll, axes[i].mu[m[i] - 1]);
+                }
+                particularBound = truncation[0] + quadrature;
+                particularGradientBound = truncation[1] + quadrature * maxMuAll * d;
             }
             double tail = 0;
             double gradientTail = 0;
@@ -1341,15 +1550,64 @@ public final class TensorSolver implements SpatialSolver {
                         others *= sums[j];
                     }
                 }
-                tail += tailC * others * gaussTail(a[i], m[i], 0);
-                gradientTail += tailC * gradientOthers(i, m[i], a, sums, weightedSums);
+                tail += tailC * others * gaussTail(a[i], transientBox[i], 0);
+                gradientTail += tailC * gradientOthers(i, transientBox[i], a, sums, weightedSums);
             }
             double maxMu = 0;
             for (int i = 0; i < d; i++) {
                 maxMu = Math.max(maxMu, axes[i].mu[m[i] - 1]);
             }
-            modalBound = tail + mod.error * decaySum;
-            modalGradientBound = gradientTail + mod.error * decaySum * maxMu * d;
+            modalBound = tail + mod.error * decaySum + particularBound;
+            modalGradientBound = gradientTail + mod.error * decaySum * maxMu * d + particularGradientBound;
+            particularGradientOnValueBox = particularGradientBound;
+        }
+
+        /**
+         * With a moving level whose particular part's gradient bound on the value box exceeds
+         * {@code limit}: a box sized for gradients, its coefficients (the transient's entries copied from
+         * the value box) and its bound; null when the value box suffices.
+         */
+        private GradientBox gradientBox(double limit) {
+            if (level == null || transientOnly == null || level.curvatureMax == 0 || modalGradientBound <= limit / 2) {
+                return null;
+            }
+            GradientBox box = gradientBox;
+            if (box != null) {
+                return box;
+            }
+            synchronized (this) {
+                if (gradientBox == null) {
+                    int[] wide = level.gradientBox(limit / 2, transientCap);
+                    int[] union = new int[d];
+                    int count = 1;
+                    for (int i = 0; i < d; i++) {
+                        union[i] = Math.max(m[i], wide[i]);
+                        count *= union[i];
+                    }
+                    double[] w = new double[count];
+                    // the transient's entries (inside transientOnly) from the value box, less its particular part
+                    double[] particularOnValueBox = new double[weighted.length];
+                    level.addParticular(t, m, particularOnValueBox);
+                    int[] index = new int[d];
+                    for (int c = 0; c < weighted.length; c++) {
+                        unflatten(c, m, index);
+                        int target = 0;
+                        for (int i = 0; i < d; i++) {
+                            target = target * union[i] + index[i];
+                        }
+                        w[target] = weighted[c] - particularOnValueBox[c];
+                    }
+                    double quadrature = level.addParticular(t, union, w);
+                    double maxMu = 0;
+                    for (int i = 0; i < d; i++) {
+                        maxMu = Math.max(maxMu, axes[i].mu[union[i] - 1]);
+                    }
+                    double[] truncation = level.truncation(union, level.explicitCutoff(true));
+                    double transientPart = modalGradientBound - particularGradientOnValueBox;
+                    gradientBox = new GradientBox(union, w, transientPart + truncation[1] + quadrature * maxMu * d);
+                }
+                return gradientBox;
+            }
         }
 
         /** Tail of the gradient: the complement's part with j_i >= m_i, weighted by mu along every axis. */
@@ -1380,7 +1638,7 @@ public final class TensorSolver implements SpatialSolver {
         }
 
         @Override
-        public Evaluation temperature(double[] p, int o, Evaluation steadyPart) {
+        public Evaluation temperature(double[] p, int o, Evaluation[] steadyParts) {
             checkPoint(p, o);
             if (t == 0) {
                 return initialValue(p, o);
@@ -1389,9 +1647,18 @@ public final class TensorSolver implements SpatialSolver {
             if (onFace != null) {
                 return onFace;
             }
-            Evaluation part = steadyPart != null ? steadyPart : steadyTemperature(p, o);
+            Evaluation part = steadyParts != null ? steadyParts[0] : steadyTemperature(p, o);
             double value = part.value();
             double bound = part.bound();
+            if (levelNow != 0 || slopeNow != 0) {
+                value += levelNow;
+                bound += 2 * EPS * Math.abs(levelNow);
+                if (lag != null && slopeNow != 0) {
+                    Evaluation lagged = steadyParts != null ? steadyParts[1] : lagAt(p, o);
+                    value -= slopeNow * lagged.value();
+                    bound += Math.abs(slopeNow) * lagged.bound();
+                }
+            }
             if (weighted != null) {
                 double[] vb = modalSum(p, o, null);
                 value += vb[0];
@@ -1425,9 +1692,17 @@ public final class TensorSolver implements SpatialSolver {
                 f.add(p, o, budget / (4 * faces.size()), g, bounds);
                 bound += bounds[1];
             }
+            if (lag != null && slopeNow != 0) {
+                double[] lagged = new double[d];
+                bound += Math.abs(slopeNow) * lag.gradient(p, o, lagged, 0);
+                for (int i = 0; i < d; i++) {
+                    g[i] -= slopeNow * lagged[i];
+                }
+            }
             if (weighted != null) {
-                double[] vb = modalSum(p, o, g);
-                bound += vb[2] + modalGradientBound;
+                GradientBox box = gradientBox(budget / (8 * lengthScale));
+                double[] vb = box == null ? modalSum(p, o, g) : modalSum(p, o, null, g, box.m, box.weighted);
+                bound += vb[2] + (box == null ? modalGradientBound : box.bound);
             }
             double limit = budget / lengthScale;
             if (!(bound <= limit)) {
@@ -1465,6 +1740,13 @@ public final class TensorSolver implements SpatialSolver {
                 value += f.add(lo, 0, hi, budget / (4 * faces.size()), null, bounds);
                 bound += bounds[0];
             }
+            value += levelNow;
+            bound += 2 * EPS * Math.abs(levelNow);
+            if (lag != null && slopeNow != 0) {
+                Evaluation lagged = lag.average(lo, hi);
+                value -= slopeNow * lagged.value();
+                bound += Math.abs(slopeNow) * lagged.bound();
+            }
             if (weighted != null) {
                 double[] vb = modalSum(lo, 0, hi, null);
                 value += vb[0];
@@ -1478,11 +1760,15 @@ public final class TensorSolver implements SpatialSolver {
 
         /** {value, value rounding bound, gradient rounding bound}; adds the gradient into g if not null. */
         private double[] modalSum(double[] p, int o, double[] g) {
-            return modalSum(p, o, null, g);
+            return modalSum(p, o, null, g, m, weighted);
+        }
+
+        private double[] modalSum(double[] p, int o, double[] hi, double[] g) {
+            return modalSum(p, o, hi, g, m, weighted);
         }
 
         /** As above, or with {@code hi} not null the mean over the cell from p to hi. */
-        private double[] modalSum(double[] p, int o, double[] hi, double[] g) {
+        private double[] modalSum(double[] p, int o, double[] hi, double[] g, int[] m, double[] weighted) {
             double[][] xs = new double[d][];
             double[][] dxs = g == null ? null : new double[d][];
             for (int i = 0; i < d; i++) {
@@ -1583,7 +1869,7 @@ public final class TensorSolver implements SpatialSolver {
                     if (on && type[i][s] == DIRICHLET) {
                         double[] point = new double[d];
                         System.arraycopy(p, o, point, 0, d);
-                        double g = faceData(i, s, point);
+                        double g = faceData(i, s, point) + levelNow;
                         return new Evaluation(g, 4 * EPS * Math.max(Math.abs(g), 1e-3 * scale));
                     }
                 }

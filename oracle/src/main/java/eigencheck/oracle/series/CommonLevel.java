@@ -1,0 +1,475 @@
+package eigencheck.oracle.series;
+
+import eigencheck.oracle.OracleException;
+import eigencheck.oracle.OracleException.Reason;
+import eigencheck.oracle.expr.Expression;
+import java.util.HashMap;
+import java.util.Map;
+
+/**
+ * A temperature level b(t), b(0) = 0, that every Dirichlet side's temperature and every convective
+ * side's ambient of a rectangle or box share on top of data constant in time:
+ * g(s, t) = g(s, 0) + b(t) (a furnace or bath whose temperature follows a schedule). Then
+ * <pre>
+ *   u = b(t) + S - b'(t) P + v,
+ * </pre>
+ * S the steady solution for the data at t = 0 and the source, P the solution of -alpha Laplace P = 1
+ * under the homogeneous conditions (the quasi-static subtraction of the uniform source -b'(t)), and
+ * v_t - alpha Laplace v = b''(t) P under homogeneous conditions with v(0) = u_0 - S + b'(0) P. Mode J
+ * of v is the decaying transient plus the particular part
+ * <pre>
+ *   (1_J / lambda_J) I_J(t),   I_J(t) = int_0^t exp(-lambda_J (t - s)) b''(s) ds,
+ * </pre>
+ * 1_J the projection of 1 on the mode; it is at most max|b''| |1_J| / lambda_J^2, and the tails are
+ * bounded in closed form ({@link #tail}). The sizes of b' and b'' are taken from 2049 samples over the
+ * horizon with a 5 % margin: a schedule with a feature narrower than 1/2048 of the horizon would be
+ * misjudged. Thread-safe after construction.
+ */
+final class CommonLevel {
+    /** Modes of each axis summed exactly inside the tail bounds; beyond, integral comparison. */
+    private static final int CUTOFF = 4096;
+    private static final int SAMPLES = 2049;
+    private static final double WINDOW = 40; // exp(-40) < 4.3e-18
+    private static final GaussLegendre RULE = GaussLegendre.of(20);
+
+    private final Expression level;
+    private final Expression slope;
+    private final Expression curvature;
+    private final double alpha;
+    private final AxisModes[] axes;
+    private final boolean[] active;
+    private final int activeCount;
+    // suffix sums of |1_j| mu_j^-r on each active axis, [0] for values (p = 2), [1] for gradients (p = 3/2)
+    private final double[][][] suffix;
+    private final double[][] whole;
+    final double levelMax;
+    final double slopeMax;
+    final double curvatureMax;
+    /** b'(0), which enters the transient's initial projections. */
+    final double initialSlope;
+
+    /**
+     * @param level b(t) - b(0) over the single variable t
+     * @param axes the body's axes (ensured here to {@link #CUTOFF} modes)
+     */
+    CommonLevel(Expression level, double horizon, double alpha, AxisModes[] axes) {
+        this.level = level;
+        this.slope = level.derivative("t");
+        this.curvature = slope.derivative("t");
+        this.alpha = alpha;
+        this.axes = axes;
+        double bMax = 0;
+        double b1Max = 0;
+        double b2Max = 0;
+        for (int i = 0; i < SAMPLES; i++) {
+            double t = horizon * i / (SAMPLES - 1);
+            bMax = Math.max(bMax, Math.abs(finite(level, t, "the common level")));
+            b1Max = Math.max(b1Max, Math.abs(finite(slope, t, "the rate of the common level")));
+            b2Max = Math.max(b2Max, Math.abs(finite(curvature, t, "the second derivative of the common level")));
+        }
+        this.levelMax = bMax;
+        this.slopeMax = 1.05 * b1Max;
+        this.curvatureMax = 1.05 * b2Max;
+        this.initialSlope = slope.value(0);
+        int d = axes.length;
+        active = new boolean[d];
+        double[][] magnitude = new double[d][];
+        double[] normLow = new double[d];
+        int count = 0;
+        for (int i = 0; i < d; i++) {
+            // a Neumann-Neumann axis: 1 projects on its constant mode alone (the others integrate to 0)
+            active[i] = !axes[i].zero;
+            if (!active[i]) {
+                continue;
+            }
+            count++;
+            axes[i].ensure(CUTOFF);
+            magnitude[i] = new double[CUTOFF];
+            for (int j = 0; j < CUTOFF; j++) {
+                magnitude[i][j] = Math.abs(axes[i].integral(j) / axes[i].norm[j]);
+            }
+            normLow[i] = axes[i].normLowerBound(CUTOFF);
+        }
+        this.activeCount = count;
+        double w0 = 1 - (activeCount - 1) / 8.0;
+        double[] powers = {2, 1.5};
+        suffix = new double[2][d][];
+        whole = new double[2][d];
+        for (int pi = 0; pi < 2; pi++) {
+            for (int i = 0; i < d; i++) {
+                if (active[i]) {
+                    suffix[pi][i] = suffixSums(magnitude[i], normLow[i], i, 2 * powers[pi] * w0);
+                    whole[pi][i] = suffixSums(magnitude[i], normLow[i], i, powers[pi] / 4)[0];
+                }
+            }
+        }
+        this.normLow = normLow;
+    }
+
+    private final double[] normLow;
+
+    /**
+     * sum_{j' >= j} |1_j'| mu_j'^-r for j <= CUTOFF: exact to CUTOFF, and beyond with |1_j| <= 2/(mu_j N),
+     * mu_j >= j pi / L and sum_{j >= C} j^-(r+1) <= (C - 1)^-r / r.
+     */
+    private double[] suffixSums(double[] magnitude, double normLower, int i, double r) {
+        double l = axes[i].length / Math.PI;
+        double[] out = new double[CUTOFF + 1];
+        out[CUTOFF] = beyond(normLower, l, r, CUTOFF);
+        for (int j = CUTOFF - 1; j >= 0; j--) {
+            out[j] = out[j + 1] + magnitude[j] * Math.pow(axes[i].mu[j], -r);
+        }
+        return out;
+    }
+
+    private static double beyond(double normLower, double l, double r, int from) {
+        return 2 / normLower * Math.pow(l, r + 1) * Math.pow(from - 1, -r) / r;
+    }
+
+    private static double finite(Expression e, double t, String what) {
+        double v = e.value(t);
+        if (!Double.isFinite(v)) {
+            throw new OracleException(Reason.DATA_NOT_FINITE, "boundary: " + what + " (from " + e.source() + ") is "
+                + v + " at t = " + t + " s");
+        }
+        return v;
+    }
+
+    double level(double t) {
+        return level.value(t);
+    }
+
+    double slope(double t) {
+        return slope.value(t);
+    }
+
+    /** The signed projection (int X_j) / ||X_j||^2 of 1 on mode j of axis i (exactly 0 past the constant on an inactive axis). */
+    double one(int i, int j) {
+        if (!active[i]) {
+            return j == 0 ? 1 : 0;
+        }
+        return axes[i].integral(j) / axes[i].norm[j];
+    }
+
+    /**
+     * A bound of the sum over modes J outside the box {@code m} of |1_J| / lambda_J^p (p = 2 or 3/2),
+     * lambda_J = alpha sum_i mu_i^2: at least one active axis i has j_i >= m_i, and there
+     * lambda/alpha >= mu_i^(2 w0) prod_k nu_k^(1/4) by weighted AM-GM (weight w0 = 1 - (A - 1)/8 on axis
+     * i, 1/8 on each of the A - 1 other active axes), so the sum splits into one-axis sums.
+     */
+    double tail(int[] m, double p) {
+        int pi = p == 2 ? 0 : 1;
+        double w0 = 1 - (activeCount - 1) / 8.0;
+        double total = 0;
+        for (int i = 0; i < axes.length; i++) {
+            if (!active[i]) {
+                continue;
+            }
+            double product = m[i] <= CUTOFF ? suffix[pi][i][m[i]]
+                : beyond(normLow[i], axes[i].length / Math.PI, 2 * p * w0, m[i]);
+            for (int k = 0; k < axes.length; k++) {
+                if (k != i && active[k]) {
+                    product *= whole[pi][k];
+                }
+            }
+            total += product;
+        }
+        return total / Math.pow(alpha, p);
+    }
+
+    /**
+     * Bound on the particular part's truncation outside box m: {value, each gradient component}; a
+     * mode's gradient is at most sum_i mu_i <= sqrt(A lambda / alpha). The modes outside m but inside
+     * the explicit region [0, C)^A are summed one by one, those beyond it bounded by {@link #tail}.
+     */
+    double[] truncation(int[] m) {
+        return truncation(m, explicitCutoff(false));
+    }
+
+    /** As {@link #truncation(int[])}, with the explicit region's edge c (c^A terms). */
+    double[] truncation(int[] m, int c) {
+        double[] explicit = explicitTail(m, c);
+        double[] beyond = beyond(c);
+        return new double[] {curvatureMax * (explicit[0] + beyond[0]),
+            curvatureMax * Math.sqrt(activeCount / alpha) * (explicit[1] + beyond[1])};
+    }
+
+    /** The explicit region's edge: about 10^6 terms while sizing boxes, about 1.7 10^7 for a final bound. */
+    int explicitCutoff(boolean wide) {
+        return activeCount == 1 ? CUTOFF : activeCount == 2 ? (wide ? CUTOFF : 1024) : (wide ? 256 : 128);
+    }
+
+    /**
+     * {p = 2, p = 3/2} sums of |1_J| / lambda_J^p beyond [0, c)^A. With two active axes, split into
+     * {m >= c, n < c}, {m < c, n >= c} (lambda >= alpha mu^2 on the long axis, the short one's sum of
+     * |1_n| exact) and {m, n >= c} (mu^2 + nu^2 >= 2 mu nu); otherwise by {@link #tail}.
+     */
+    private double[] beyond(int c) {
+        int[] region = new int[axes.length];
+        for (int i = 0; i < region.length; i++) {
+            region[i] = active[i] ? c : 1;
+        }
+        if (activeCount != 2 || c > CUTOFF) {
+            return new double[] {tail(region, 2), tail(region, 1.5)};
+        }
+        int i0 = -1;
+        int i1 = -1;
+        for (int i = 0; i < axes.length; i++) {
+            if (active[i]) {
+                if (i0 < 0) {
+                    i0 = i;
+                } else {
+                    i1 = i;
+                }
+            }
+        }
+        double[] out = new double[2];
+        double[] powers = {2, 1.5};
+        for (int pi = 0; pi < 2; pi++) {
+            double p = powers[pi];
+            double r0 = axisSum(i0, c, 2 * p);
+            double r1 = axisSum(i1, c, 2 * p);
+            double s0 = 0;
+            double s1 = 0;
+            for (int j = 0; j < c; j++) {
+                s0 += Math.abs(one(i0, j));
+                s1 += Math.abs(one(i1, j));
+            }
+            double both = axisSum(i0, c, p) * axisSum(i1, c, p) / Math.pow(2, p);
+            out[pi] = (r0 * s1 + r1 * s0 + both) / Math.pow(alpha, p);
+        }
+        return out;
+    }
+
+    /** sum_{j >= from} |1_j| mu_j^-r on active axis i: exact to CUTOFF, bounded beyond. */
+    private double axisSum(int i, int from, double r) {
+        double sum = 0;
+        for (int j = from; j < CUTOFF; j++) {
+            sum += Math.abs(one(i, j)) * Math.pow(axes[i].mu[j], -r);
+        }
+        return sum + beyond(normLow[i], axes[i].length / Math.PI, r, Math.max(from, CUTOFF));
+    }
+
+    /** {sum |1_J| / lambda_J^2, sum |1_J| / lambda_J^(3/2)} over J in [0, c)^A outside box m. */
+    private double[] explicitTail(int[] m, int c) {
+        int[] on = new int[activeCount];
+        int a = 0;
+        for (int i = 0; i < axes.length; i++) {
+            if (active[i]) {
+                on[a++] = i;
+            }
+        }
+        double[][] mu2 = new double[activeCount][c];
+        double[][] mag = new double[activeCount][c];
+        for (int q = 0; q < activeCount; q++) {
+            for (int j = 0; j < c; j++) {
+                double mu = axes[on[q]].mu[j];
+                mu2[q][j] = alpha * mu * mu;
+                mag[q][j] = Math.abs(one(on[q], j));
+            }
+        }
+        double two = 0;
+        double threeHalves = 0;
+        if (activeCount == 1) {
+            for (int j = m[on[0]]; j < c; j++) {
+                double l = mu2[0][j];
+                two += mag[0][j] / (l * l);
+                threeHalves += mag[0][j] / (l * Math.sqrt(l));
+            }
+        } else if (activeCount == 2) {
+            int m0 = m[on[0]];
+            int m1 = m[on[1]];
+            for (int j = 0; j < c; j++) {
+                for (int n = j < m0 ? m1 : 0; n < c; n++) {
+                    double l = mu2[0][j] + mu2[1][n];
+                    double w = mag[0][j] * mag[1][n];
+                    two += w / (l * l);
+                    threeHalves += w / (l * Math.sqrt(l));
+                }
+            }
+        } else {
+            int m0 = m[on[0]];
+            int m1 = m[on[1]];
+            int m2 = m[on[2]];
+            for (int j = 0; j < c; j++) {
+                for (int n = 0; n < c; n++) {
+                    int from = j < m0 && n < m1 ? m2 : 0;
+                    double w0 = mag[0][j] * mag[1][n];
+                    double l0 = mu2[0][j] + mu2[1][n];
+                    for (int r = from; r < c; r++) {
+                        double l = l0 + mu2[2][r];
+                        double w = w0 * mag[2][r];
+                        two += w / (l * l);
+                        threeHalves += w / (l * Math.sqrt(l));
+                    }
+                }
+            }
+        }
+        return new double[] {two, threeHalves};
+    }
+
+    /**
+     * The least box, modes in proportion to the axes' lengths, whose truncation of values is within the
+     * budget; inactive axes keep their constant mode alone. Gradients report the bound this box gives
+     * them (their series converges a power of lambda^(1/2) more slowly).
+     *
+     * @throws OracleException past {@code cap} modes along an axis
+     */
+    int[] box(double valueBudget, int cap) {
+        return grow(cap, "values", m -> truncation(m)[0] <= valueBudget);
+    }
+
+    /** The least box whose truncation of gradients is within the budget (see {@link #box}). */
+    int[] gradientBox(double gradientBudget, int cap) {
+        return grow(cap, "gradients", m -> truncation(m)[1] <= gradientBudget);
+    }
+
+    private int[] grow(int cap, String what, java.util.function.Predicate<int[]> enough) {
+        int d = axes.length;
+        int[] m = new int[d];
+        if (curvatureMax == 0) {
+            java.util.Arrays.fill(m, 1);
+            return m;
+        }
+        double longest = 0;
+        for (int i = 0; i < d; i++) {
+            longest = Math.max(longest, axes[i].length);
+        }
+        for (double density = 4; ; density *= 1.25) {
+            for (int i = 0; i < d; i++) {
+                m[i] = active[i] ? Math.max(2, (int) Math.ceil(density * axes[i].length / longest)) : 1;
+            }
+            if (enough.test(m)) {
+                return m;
+            }
+            for (int i = 0; i < d; i++) {
+                if (m[i] > cap) {
+                    throw new OracleException(Reason.TOO_MANY_MODES, "oracle: the " + what + " of the response to the"
+                        + " common boundary level's second derivative need more than " + cap + " modes along an axis"
+                        + " to reach the tolerance; loosen the tolerance or smooth the schedule");
+                }
+            }
+        }
+    }
+
+    /**
+     * Adds the particular coefficients (1_J / lambda_J) I_J(t) over box m (row-major, last axis fastest)
+     * into {@code into}; returns a bound on the quadrature's share of the sum of their magnitudes.
+     */
+    double addParticular(double t, int[] m, double[] into) {
+        int d = m.length;
+        for (int i = 0; i < d; i++) {
+            axes[i].ensure(m[i]);
+        }
+        if (curvatureMax == 0 || t == 0) {
+            return 0;
+        }
+        // panels that b'' itself needs: doubled until the integral of b''^2 over [0, t] settles
+        int basePanels = 1;
+        double previous = squareIntegral(t, basePanels);
+        while (basePanels < 4096) {
+            double next = squareIntegral(t, 2 * basePanels);
+            basePanels *= 2;
+            boolean settled = Math.abs(next - previous) <= 1e-14 * Math.max(next, 1e-300);
+            previous = next;
+            if (settled) {
+                break;
+            }
+        }
+        double density = basePanels / t;
+        int[] index = new int[d];
+        double weightSum = 0;
+        double lowest = Double.POSITIVE_INFINITY;
+        Map<Integer, double[]> windows = new HashMap<>();
+        for (int c = 0; c < into.length; c++) {
+            int rest = c;
+            for (int i = d - 1; i >= 0; i--) {
+                index[i] = rest % m[i];
+                rest /= m[i];
+            }
+            double one = 1;
+            double lambda = 0;
+            for (int i = 0; i < d; i++) {
+                one *= one(i, index[i]);
+                double mu = axes[i].mu[index[i]];
+                lambda += mu * mu;
+            }
+            if (one == 0) {
+                continue;
+            }
+            lambda *= alpha;
+            lowest = Math.min(lowest, lambda);
+            int k = window(lambda, t);
+            double[] values = windows.computeIfAbsent(k, key -> nodeValues(t, key, density, 1));
+            into[c] += one / lambda * duhamel(lambda, t, k, density, 1, values);
+            weightSum += Math.abs(one) / (lambda * lambda);
+        }
+        double relative = 0;
+        if (lowest < Double.POSITIVE_INFINITY) {
+            // the quadrature, checked on the slowest mode (the widest window) against doubled panels
+            int k = window(lowest, t);
+            double coarse = duhamel(lowest, t, k, density, 1, nodeValues(t, k, density, 1));
+            double fine = duhamel(lowest, t, k, density, 2, nodeValues(t, k, density, 2));
+            relative = Math.abs(coarse - fine) / (curvatureMax / lowest) + 1e-14;
+        }
+        return relative * curvatureMax * weightSum;
+    }
+
+    /** k of the window t / 2^k: the shortest of that form that still covers where exp(-lambda s) > exp(-40). */
+    private static int window(double lambda, double t) {
+        return lambda * t <= WINDOW ? 0 : (int) Math.floor(Math.log(lambda * t / WINDOW) / Math.log(2));
+    }
+
+    /** Panels of window k: lambda times a panel's width at most 8 (lambda W_k < 80), and the density b'' needs. */
+    private static int panels(double t, int k, double density, int refine) {
+        double width = t / Math.pow(2, k);
+        return refine * (int) Math.max(10, Math.ceil(width * density));
+    }
+
+    private double[] nodeValues(double t, int k, double density, int refine) {
+        double width = t / Math.pow(2, k);
+        int panels = panels(t, k, density, refine);
+        double h = width / panels;
+        double a = t - width;
+        int n = RULE.nodes.length;
+        double[] v = new double[panels * n];
+        for (int p = 0; p < panels; p++) {
+            double mid = a + (p + 0.5) * h;
+            for (int q = 0; q < n; q++) {
+                v[p * n + q] = curvature.value(mid + 0.5 * h * RULE.nodes[q]);
+            }
+        }
+        return v;
+    }
+
+    /** int over the window t - W_k .. t of exp(-lambda (t - s)) b''(s) ds, b'' at the window's nodes given. */
+    private static double duhamel(double lambda, double t, int k, double density, int refine, double[] values) {
+        double width = t / Math.pow(2, k);
+        int panels = panels(t, k, density, refine);
+        double h = width / panels;
+        double a = t - width;
+        int n = RULE.nodes.length;
+        double sum = 0;
+        for (int p = 0; p < panels; p++) {
+            double mid = a + (p + 0.5) * h;
+            for (int q = 0; q < n; q++) {
+                double s = mid + 0.5 * h * RULE.nodes[q];
+                sum += RULE.weights[q] * Math.exp(-lambda * (t - s)) * values[p * n + q];
+            }
+        }
+        return 0.5 * h * sum;
+    }
+
+    private double squareIntegral(double t, int panels) {
+        double h = t / panels;
+        double sum = 0;
+        for (int p = 0; p < panels; p++) {
+            double mid = (p + 0.5) * h;
+            for (int q = 0; q < RULE.nodes.length; q++) {
+                double v = curvature.value(mid + 0.5 * h * RULE.nodes[q]);
+                sum += RULE.weights[q] * v * v;
+            }
+        }
+        return 0.5 * h * sum;
+    }
+}
