@@ -49,9 +49,9 @@ public final class RadialModes {
         double m = 4.0 * order * order;
         double z = beta - (m - 1) / (8 * beta) - 4 * (m - 1) * (7 * m - 31) / (3 * Math.pow(8 * beta, 3));
         for (int i = 0; i < 50; i++) {
-            double f = BesselJ.value(order, z);
+            double f = bessel(order, z);
             // d/dz J0 = -J1; d/dz J1 = J0 - J1/z
-            double df = order == 0 ? -BesselJ.value(1, z) : BesselJ.value(0, z) - BesselJ.value(1, z) / z;
+            double df = order == 0 ? -bessel(1, z) : bessel(0, z) - bessel(1, z) / z;
             double step = f / df;
             z -= step;
             if (Math.abs(step) <= 2 * Math.ulp(z)) {
@@ -81,7 +81,7 @@ public final class RadialModes {
             }
             double lo = n == 1 ? 0 : besselZero(1, n - 1);
             double hi = besselZero(0, n);
-            return brent.solve(1000, z -> z * BesselJ.value(1, z) - biot * BesselJ.value(0, z), lo, hi);
+            return brent.solve(1000, z -> z * bessel(1, z) - biot * bessel(0, z), lo, hi);
         }
         if (biot == Double.POSITIVE_INFINITY) {
             return n * Math.PI;
@@ -93,6 +93,23 @@ public final class RadialModes {
             lo = Math.min(1e-3, 0.01 * Math.sqrt(3 * biot));
         }
         return brent.solve(1000, z -> sphere(z, biot), lo, hi);
+    }
+
+    /**
+     * J_order(x), order 0 or 1: Commons Math's BesselJ below x = 5000, the large-argument (Hankel)
+     * expansion beyond, whose first neglected term is below 1e-19 there (Abramowitz and Stegun 9.2.5,
+     * 9.2.9, 9.2.10). Commons Math refuses x above 10000, which mode 3184 of a cylinder reaches.
+     */
+    static double bessel(int order, double x) {
+        if (x < 5000) {
+            return BesselJ.value(order, x);
+        }
+        double mu = 4.0 * order * order;
+        double y = 8 * x;
+        double p = 1 - (mu - 1) * (mu - 9) / (2 * y * y) + (mu - 1) * (mu - 9) * (mu - 25) * (mu - 49) / (24 * y * y * y * y);
+        double q = (mu - 1) / y - (mu - 1) * (mu - 9) * (mu - 25) / (6 * y * y * y);
+        double chi = x - (0.5 * order + 0.25) * Math.PI;
+        return Math.sqrt(2 / (Math.PI * x)) * (p * Math.cos(chi) - q * Math.sin(chi));
     }
 
     /** (sin z/z - cos z) - Bi sin z/z: zero at the sphere roots, accurate for small z. */
@@ -121,7 +138,7 @@ public final class RadialModes {
     public static double mode(Shape shape, double mu, double r) {
         double x = mu * r;
         if (shape == Shape.CYLINDER) {
-            return BesselJ.value(0, x);
+            return bessel(0, x);
         }
         return x < 1e-4 ? 1 - x * x / 6 : Math.sin(x) / x;
     }
@@ -130,8 +147,8 @@ public final class RadialModes {
     public static double normSquared(Shape shape, double radius, double mu) {
         double z = mu * radius;
         if (shape == Shape.CYLINDER) {
-            double j0 = BesselJ.value(0, z);
-            double j1 = BesselJ.value(1, z);
+            double j0 = bessel(0, z);
+            double j1 = bessel(1, z);
             return 0.5 * radius * radius * (j0 * j0 + j1 * j1);
         }
         // R/2 - sin(2z)/(4 mu) = (R/2)(1 - sin(2z)/(2z)), a series where it would cancel
@@ -157,7 +174,7 @@ public final class RadialModes {
     public static double weightIntegral(Shape shape, double radius, double mu) {
         double z = mu * radius;
         if (shape == Shape.CYLINDER) {
-            return radius * BesselJ.value(1, z) / mu;
+            return radius * bessel(1, z) / mu;
         }
         // sin z - z cos z = z (sin z/z - cos z), a series where it would cancel
         return z * sphere(z, 0) / (mu * mu * mu);

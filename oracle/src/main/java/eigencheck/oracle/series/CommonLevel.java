@@ -3,8 +3,6 @@ package eigencheck.oracle.series;
 import eigencheck.oracle.OracleException;
 import eigencheck.oracle.OracleException.Reason;
 import eigencheck.oracle.expr.Expression;
-import java.util.HashMap;
-import java.util.Map;
 
 /**
  * A temperature level b(t), b(0) = 0, that every Dirichlet side's temperature and every convective
@@ -29,12 +27,11 @@ final class CommonLevel {
     /** Modes of each axis summed exactly inside the tail bounds; beyond, integral comparison. */
     private static final int CUTOFF = 4096;
     private static final int SAMPLES = 2049;
-    private static final double WINDOW = 40; // exp(-40) < 4.3e-18
-    private static final GaussLegendre RULE = GaussLegendre.of(20);
 
     private final Expression level;
     private final Expression slope;
     private final Expression curvature;
+    private final ScheduleIntegral duhamel;
     private final double alpha;
     private final AxisModes[] axes;
     private final boolean[] active;
@@ -56,20 +53,13 @@ final class CommonLevel {
         this.level = level;
         this.slope = level.derivative("t");
         this.curvature = slope.derivative("t");
+        this.duhamel = new ScheduleIntegral(curvature);
         this.alpha = alpha;
         this.axes = axes;
-        double bMax = 0;
-        double b1Max = 0;
-        double b2Max = 0;
-        for (int i = 0; i < SAMPLES; i++) {
-            double t = horizon * i / (SAMPLES - 1);
-            bMax = Math.max(bMax, Math.abs(finite(level, t, "the common level")));
-            b1Max = Math.max(b1Max, Math.abs(finite(slope, t, "the rate of the common level")));
-            b2Max = Math.max(b2Max, Math.abs(finite(curvature, t, "the second derivative of the common level")));
-        }
-        this.levelMax = bMax;
-        this.slopeMax = 1.05 * b1Max;
-        this.curvatureMax = 1.05 * b2Max;
+        double[] sizes = sizes(level, slope, curvature, horizon);
+        this.levelMax = sizes[0];
+        this.slopeMax = sizes[1];
+        this.curvatureMax = sizes[2];
         this.initialSlope = slope.value(0);
         int d = axes.length;
         active = new boolean[d];
@@ -124,6 +114,25 @@ final class CommonLevel {
 
     private static double beyond(double normLower, double l, double r, int from) {
         return 2 / normLower * Math.pow(l, r + 1) * Math.pow(from - 1, -r) / r;
+    }
+
+    /**
+     * {max |b|, max |b'|, max |b''|} over [0, horizon] from 2049 samples, the derivatives with a 5 %
+     * margin for what lies between the samples.
+     *
+     * @throws OracleException if one of them is not finite at a sample
+     */
+    static double[] sizes(Expression level, Expression slope, Expression curvature, double horizon) {
+        double bMax = 0;
+        double b1Max = 0;
+        double b2Max = 0;
+        for (int i = 0; i < SAMPLES; i++) {
+            double t = horizon * i / (SAMPLES - 1);
+            bMax = Math.max(bMax, Math.abs(finite(level, t, "the common level")));
+            b1Max = Math.max(b1Max, Math.abs(finite(slope, t, "the rate of the common level")));
+            b2Max = Math.max(b2Max, Math.abs(finite(curvature, t, "the second derivative of the common level")));
+        }
+        return new double[] {bMax, 1.05 * b1Max, 1.05 * b2Max};
     }
 
     private static double finite(Expression e, double t, String what) {
@@ -364,23 +373,10 @@ final class CommonLevel {
         if (curvatureMax == 0 || t == 0) {
             return 0;
         }
-        // panels that b'' itself needs: doubled until the integral of b''^2 over [0, t] settles
-        int basePanels = 1;
-        double previous = squareIntegral(t, basePanels);
-        while (basePanels < 4096) {
-            double next = squareIntegral(t, 2 * basePanels);
-            basePanels *= 2;
-            boolean settled = Math.abs(next - previous) <= 1e-14 * Math.max(next, 1e-300);
-            previous = next;
-            if (settled) {
-                break;
-            }
-        }
-        double density = basePanels / t;
+        ScheduleIntegral.At integrals = duhamel.at(t);
         int[] index = new int[d];
         double weightSum = 0;
         double lowest = Double.POSITIVE_INFINITY;
-        Map<Integer, double[]> windows = new HashMap<>();
         for (int c = 0; c < into.length; c++) {
             int rest = c;
             for (int i = d - 1; i >= 0; i--) {
@@ -399,77 +395,9 @@ final class CommonLevel {
             }
             lambda *= alpha;
             lowest = Math.min(lowest, lambda);
-            int k = window(lambda, t);
-            double[] values = windows.computeIfAbsent(k, key -> nodeValues(t, key, density, 1));
-            into[c] += one / lambda * duhamel(lambda, t, k, density, 1, values);
+            into[c] += one / lambda * integrals.value(lambda);
             weightSum += Math.abs(one) / (lambda * lambda);
         }
-        double relative = 0;
-        if (lowest < Double.POSITIVE_INFINITY) {
-            // the quadrature, checked on the slowest mode (the widest window) against doubled panels
-            int k = window(lowest, t);
-            double coarse = duhamel(lowest, t, k, density, 1, nodeValues(t, k, density, 1));
-            double fine = duhamel(lowest, t, k, density, 2, nodeValues(t, k, density, 2));
-            relative = Math.abs(coarse - fine) / (curvatureMax / lowest) + 1e-14;
-        }
-        return relative * curvatureMax * weightSum;
-    }
-
-    /** k of the window t / 2^k: the shortest of that form that still covers where exp(-lambda s) > exp(-40). */
-    private static int window(double lambda, double t) {
-        return lambda * t <= WINDOW ? 0 : (int) Math.floor(Math.log(lambda * t / WINDOW) / Math.log(2));
-    }
-
-    /** Panels of window k: lambda times a panel's width at most 8 (lambda W_k < 80), and the density b'' needs. */
-    private static int panels(double t, int k, double density, int refine) {
-        double width = t / Math.pow(2, k);
-        return refine * (int) Math.max(10, Math.ceil(width * density));
-    }
-
-    private double[] nodeValues(double t, int k, double density, int refine) {
-        double width = t / Math.pow(2, k);
-        int panels = panels(t, k, density, refine);
-        double h = width / panels;
-        double a = t - width;
-        int n = RULE.nodes.length;
-        double[] v = new double[panels * n];
-        for (int p = 0; p < panels; p++) {
-            double mid = a + (p + 0.5) * h;
-            for (int q = 0; q < n; q++) {
-                v[p * n + q] = curvature.value(mid + 0.5 * h * RULE.nodes[q]);
-            }
-        }
-        return v;
-    }
-
-    /** int over the window t - W_k .. t of exp(-lambda (t - s)) b''(s) ds, b'' at the window's nodes given. */
-    private static double duhamel(double lambda, double t, int k, double density, int refine, double[] values) {
-        double width = t / Math.pow(2, k);
-        int panels = panels(t, k, density, refine);
-        double h = width / panels;
-        double a = t - width;
-        int n = RULE.nodes.length;
-        double sum = 0;
-        for (int p = 0; p < panels; p++) {
-            double mid = a + (p + 0.5) * h;
-            for (int q = 0; q < n; q++) {
-                double s = mid + 0.5 * h * RULE.nodes[q];
-                sum += RULE.weights[q] * Math.exp(-lambda * (t - s)) * values[p * n + q];
-            }
-        }
-        return 0.5 * h * sum;
-    }
-
-    private double squareIntegral(double t, int panels) {
-        double h = t / panels;
-        double sum = 0;
-        for (int p = 0; p < panels; p++) {
-            double mid = (p + 0.5) * h;
-            for (int q = 0; q < RULE.nodes.length; q++) {
-                double v = curvature.value(mid + 0.5 * h * RULE.nodes[q]);
-                sum += RULE.weights[q] * v * v;
-            }
-        }
-        return 0.5 * h * sum;
+        return integrals.relativeError(lowest, curvatureMax) * curvatureMax * weightSum;
     }
 }

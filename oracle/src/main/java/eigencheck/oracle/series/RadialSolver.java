@@ -61,6 +61,15 @@ public final class RadialSolver implements SpatialSolver {
     private double[] coef = new double[0];
     private double coefError;
     private double tailCoefficient;
+    // a surface temperature or ambient that moves: g(t) = g(0) + b(t); u = b + S - b' P1 + b'' P2 + v with
+    // P1 = A^-1 1 and P2 = A^-1 P1 in closed form (polynomials in r^2), v_t + A v = -b''' P2
+    private final Expression level;
+    private final Expression slope;
+    private final Expression curvature;
+    private final double thirdMax;
+    private final ScheduleIntegral duhamel;
+    private final double lagConstant; // P1(r) = (R^2 - r^2) / (2 (n + 1) alpha) + lagConstant
+    private final double[] lag2 = new double[3]; // P2(r) = lag2[0] + lag2[1] r^2 + lag2[2] r^4
 
     public RadialSolver(Problem problem, double timeHorizon, double tolerance) {
         if (!(tolerance > 0 && tolerance < 1)) {
@@ -81,14 +90,48 @@ public final class RadialSolver implements SpatialSolver {
         this.initial = problem.initial();
         Expression source = problem.source();
         BoundaryCondition surface = problem.condition(Side.SURFACE);
-        for (Expression e : new Expression[] {source, surface.data()}) {
+        boolean moving = !steady && !(surface instanceof BoundaryCondition.Neumann)
+            && surface.data().variables().contains("t") && !surface.data().isIndependentOf("t");
+        for (Expression e : moving ? new Expression[] {source} : new Expression[] {source, surface.data()}) {
             if (e.variables().contains("t") && !e.isIndependentOf("t")) {
                 throw new OracleException(Reason.UNSUPPORTED, "oracle: the " + (sphere ? "sphere's" : "cylinder's")
-                    + " source and surface data must be constant in time in this version" + (sphere
-                    ? " for a flux surface or Bi below 0.05" : "") + " (" + e.source() + " depends on t); the initial"
-                    + " temperature may be anything");
+                    + " source" + (moving ? "" : " and surface flux") + " must be constant in time in this version"
+                    + (sphere ? " for a flux surface or Bi below 0.05" : "") + " (" + e.source() + " depends on t); a"
+                    + " surface temperature or ambient may vary in time, the initial temperature may be anything");
             }
         }
+        if (moving) {
+            Expression g = surface.data();
+            if (g.variables().contains("r")) {
+                g = g.substitute("r", radius);
+            }
+            g = g.over("t");
+            this.level = g.linear(1, Expression.constant(1, "t"), -g.value(0));
+            this.slope = level.derivative("t");
+            this.curvature = slope.derivative("t");
+            Expression third = curvature.derivative("t");
+            this.thirdMax = CommonLevel.sizes(curvature, third, third, timeHorizon)[1];
+            this.duhamel = new ScheduleIntegral(third);
+            double h = surface instanceof BoundaryCondition.Robin rob ? rob.heatTransferCoefficient()
+                : Double.POSITIVE_INFINITY;
+            this.lagConstant = k * radius / ((n + 1) * alpha * h);
+            // -alpha Lap P2 = P1 with Lap r^(2j) = 2j (2j + n - 1) r^(2j - 2); P2(R) + (k/h) P2'(R) = 0
+            double c4 = 1 / (8 * (n + 1) * (n + 3) * alpha * alpha);
+            double c2 = -(radius * radius / (2 * (n + 1) * alpha) + lagConstant) / (2 * (n + 1) * alpha);
+            double atSurface = c2 * radius * radius + c4 * Math.pow(radius, 4);
+            double slopeAtSurface = 2 * c2 * radius + 4 * c4 * Math.pow(radius, 3);
+            lag2[0] = -atSurface - k / h * slopeAtSurface;
+            lag2[1] = c2;
+            lag2[2] = c4;
+        } else {
+            this.level = null;
+            this.slope = null;
+            this.curvature = null;
+            this.thirdMax = 0;
+            this.duhamel = null;
+            this.lagConstant = 0;
+        }
+        double levelMax = moving ? CommonLevel.sizes(level, slope, curvature, timeHorizon)[0] : 0;
         double data = valueOf(surface.data(), radius);
         Expression q = source;
         double sourceIntegral = integrate(r -> valueOf(q, r) * Math.pow(r, n));
@@ -172,7 +215,49 @@ public final class RadialSolver implements SpatialSolver {
         for (int i = 0; i <= 32; i++) {
             u = Math.max(u, Math.abs(steadyValue(radius * i / 32)));
         }
+        u += levelMax;
         scale = u > 0 ? u : 1;
+    }
+
+    /** P1(r), with -alpha (r^n P1')' / r^n = 1 under the homogeneous surface condition. */
+    private double lag(double r) {
+        return (radius * radius - r * r) / (2 * (n + 1) * alpha) + lagConstant;
+    }
+
+    /** P2(r), with -alpha (r^n P2')' / r^n = P1 under the homogeneous surface condition. */
+    private double lag2(double r) {
+        double r2 = r * r;
+        return lag2[0] + lag2[1] * r2 + lag2[2] * r2 * r2;
+    }
+
+    /** The mean of r^(2j) over a < r < b with weight r^n. */
+    private double powerMean(int j, double a, double b) {
+        double area = (Math.pow(b, n + 1) - Math.pow(a, n + 1)) / (n + 1);
+        return (Math.pow(b, n + 1 + 2 * j) - Math.pow(a, n + 1 + 2 * j)) / (n + 1 + 2 * j) / area;
+    }
+
+    /** |1_i|, the projection of 1 on mode i, or its bound past the computed modes. */
+    private double one(int i) {
+        return Math.abs(modeIntegral(beta[i], 0, radius) / norm[i]);
+    }
+
+    /**
+     * Bounds of sum_{i >= from} |1_i| beta_i^g / lambda_i^3 (g = 0 values, 1 gradients) past the
+     * computed modes: beta_i >= i pi / R and beta_i <= 2 i pi / R; the cylinder's
+     * |1_i| = 2 |J1(z)| / (z (J0^2 + J1^2)) <= 2 pi / sqrt(z) with sqrt(z) |J1(z)| <= 1 and
+     * J0^2 + J1^2 >= 1 / (pi z) (half the large-z value); the sphere's |1_i| <= (1 + z)/(0.42 z) <= 3.2
+     * for z >= pi.
+     */
+    private double beyondComputed(int from, int g) {
+        double c = Math.PI / radius;
+        double a3 = alpha * alpha * alpha;
+        if (!sphere) {
+            // 2 pi / sqrt(i pi) (2 i c)^g / (alpha^3 (i c)^6): sum i^(g - 6.5) <= (from - 1)^(g - 5.5) / (5.5 - g)
+            double factor = 2 * Math.PI / Math.sqrt(Math.PI) * Math.pow(2 * c, g) / (a3 * Math.pow(c, 6));
+            return factor * Math.pow(from - 1, g - 5.5) / (5.5 - g);
+        }
+        double factor = 3.2 * Math.pow(2 * c, g) / (a3 * Math.pow(c, 6));
+        return factor * Math.pow(from - 1, g - 5) / (5 - g);
     }
 
     /**
@@ -186,8 +271,9 @@ public final class RadialSolver implements SpatialSolver {
             return constant;
         }
         if (surface instanceof BoundaryCondition.Robin r) {
+            // a moving ambient is a level this solver takes; a source that varies in time stays on the mapping
             double biot = r.heatTransferCoefficient() * p.domain().characteristicLength() / p.material().conductivity();
-            return constant && biot < 0.05;
+            return p.source().isIndependentOf("t") && biot < 0.05;
         }
         return false;
     }
@@ -320,6 +406,19 @@ public final class RadialSolver implements SpatialSolver {
             diff = Math.max(diff, Math.abs(result[0][i] - result[1][i]));
         }
         coefError = 10 * diff + steadyError;
+        if (level != null) {
+            // v(0) = u_0 - S + b'(0) P1 - b''(0) P2: (P1)_i = 1_i / lambda_i, (P2)_i = 1_i / lambda_i^2 exactly;
+            // ||P1|| <= P1(0) ||1|| and ||P2|| <= P2(0) ||1|| (both decrease from the centre)
+            double initialSlope = slope.value(0);
+            double initialCurvature = curvature.value(0);
+            for (int i = 0; i < size; i++) {
+                double l = alpha * b[i] * b[i];
+                double one = modeIntegral(b[i], 0, radius) / nn[i];
+                result[0][i] += initialSlope * one / l - initialCurvature * one / (l * l);
+            }
+            normF += (Math.abs(initialSlope) * lag(0) + Math.abs(initialCurvature) * lag2(0))
+                * Math.sqrt(Math.pow(radius, n + 1) / (n + 1));
+        }
         beta = b;
         norm = nn;
         coef = result[0];
@@ -348,9 +447,16 @@ public final class RadialSolver implements SpatialSolver {
         private final double[] b;
         private final double bound;
         private final double gradientBound;
+        private final double levelNow;
+        private final double slopeNow;
+        private final double curvatureNow;
 
         RadialSlice(double t) {
             this.t = t;
+            boolean moving = level != null && t > 0 && t < Double.POSITIVE_INFINITY;
+            this.levelNow = moving ? level.value(t) : 0;
+            this.slopeNow = moving ? slope.value(t) : 0;
+            this.curvatureNow = moving ? curvature.value(t) : 0;
             if (t == 0 || t == Double.POSITIVE_INFINITY) {
                 m = 0;
                 weighted = new double[0];
@@ -391,20 +497,87 @@ public final class RadialSolver implements SpatialSolver {
                 }
                 size = coef.length * 2;
             }
-            m = mm;
+            // the moving level's particular part: modes until its tails meet the budgets (values at least)
+            int particular = 0;
+            double pTail = 0;
+            double pgTail = 0;
+            if (moving && thirdMax > 0) {
+                int want = coef.length;
+                while (true) {
+                    ensure(want);
+                    int sz = coef.length;
+                    double[] sv = new double[sz + 1];
+                    double[] sg = new double[sz + 1];
+                    sv[sz] = beyondComputed(sz, 0);
+                    sg[sz] = beyondComputed(sz, 1);
+                    for (int i = sz - 1; i >= 0; i--) {
+                        double l = alpha * beta[i] * beta[i];
+                        double w = one(i) / (l * l * l);
+                        sv[i] = sv[i + 1] + w;
+                        sg[i] = sg[i + 1] + w * beta[i];
+                    }
+                    int both = -1;
+                    int values = -1;
+                    for (int i = 1; i <= sz; i++) {
+                        if (values < 0 && thirdMax * sv[i] <= budget / 8) {
+                            values = i;
+                        }
+                        if (thirdMax * sv[i] <= budget / 8 && thirdMax * sg[i] <= budget / (8 * radius)) {
+                            both = i;
+                            break;
+                        }
+                    }
+                    if (both > 0 || (sz >= CAP && values > 0)) {
+                        particular = both > 0 ? both : values;
+                        pTail = thirdMax * sv[particular];
+                        pgTail = thirdMax * sg[particular];
+                        break;
+                    }
+                    if (sz >= CAP) {
+                        throw new OracleException(Reason.TOO_MANY_MODES, "oracle: at t = " + t + " s the response to"
+                            + " the moving surface temperature needs more than " + CAP + " modes; loosen the tolerance");
+                    }
+                    want = 2 * sz;
+                }
+            }
+            m = Math.max(mm, particular);
             weighted = new double[m];
             b = new double[m];
             double decaySum = 0;
             double maxBeta = 0;
             for (int i = 0; i < m; i++) {
-                double e = Math.exp(-alpha * beta[i] * beta[i] * t);
-                weighted[i] = coef[i] * e;
                 b[i] = beta[i];
-                decaySum += e;
                 maxBeta = Math.max(maxBeta, beta[i]);
+                if (i < mm) {
+                    double e = Math.exp(-alpha * beta[i] * beta[i] * t);
+                    weighted[i] = coef[i] * e;
+                    decaySum += e;
+                }
             }
-            bound = steadyError + tail + coefError * decaySum;
-            gradientBound = gradientError + gTail + coefError * decaySum * maxBeta;
+            double quadrature = 0;
+            double quadratureGradient = 0;
+            if (particular > 0) {
+                ScheduleIntegral.At integrals = duhamel.at(t);
+                double sumValue = 0;
+                double sumGradient = 0;
+                for (int i = 0; i < particular; i++) {
+                    double l = alpha * beta[i] * beta[i];
+                    double one = modeIntegral(beta[i], 0, radius) / norm[i];
+                    weighted[i] -= one / (l * l) * integrals.value(l);
+                    sumValue += Math.abs(one) / (l * l * l);
+                    sumGradient += Math.abs(one) / (l * l * l) * beta[i];
+                }
+                double relative = integrals.relativeError(alpha * beta[0] * beta[0], thirdMax);
+                quadrature = relative * thirdMax * sumValue;
+                quadratureGradient = relative * thirdMax * sumGradient;
+            }
+            bound = steadyError + tail + coefError * decaySum + pTail + quadrature;
+            gradientBound = gradientError + gTail + coefError * decaySum * maxBeta + pgTail + quadratureGradient;
+        }
+
+        /** b(t) - b'(t) P1(r) + b''(t) P2(r): the moving level and its quasi-static lag. */
+        private double levelPart(double r) {
+            return levelNow - slopeNow * lag(r) + curvatureNow * lag2(r);
         }
 
         @Override
@@ -428,8 +601,9 @@ public final class RadialSolver implements SpatialSolver {
                 double g = valueOf(initial, r);
                 return new Evaluation(g, 4 * EPS * Math.max(Math.abs(g), 1e-3 * scale));
             }
-            double value = (steady ? 0 : drift * t) + steadyValue(r);
-            double magnitude = Math.abs(value);
+            double value = (steady ? 0 : drift * t) + steadyValue(r) + levelPart(r);
+            double magnitude = Math.abs(value) + Math.abs(levelNow) + Math.abs(slopeNow * lag(r))
+                + Math.abs(curvatureNow * lag2(r));
             for (int i = 0; i < m; i++) {
                 double term = weighted[i] * mode(b[i] * r);
                 value += term;
@@ -480,8 +654,12 @@ public final class RadialSolver implements SpatialSolver {
                 }
                 sums[pass] = sum;
             }
-            double value = (steady ? 0 : drift * t) + sums[1] / area;
-            double magnitude = Math.abs(value);
+            double lagMean = (radius * radius - powerMean(1, inner, outer)) / (2 * (n + 1) * alpha) + lagConstant;
+            double lag2Mean = lag2[0] + lag2[1] * powerMean(1, inner, outer) + lag2[2] * powerMean(2, inner, outer);
+            double value = (steady ? 0 : drift * t) + sums[1] / area + levelNow - slopeNow * lagMean
+                + curvatureNow * lag2Mean;
+            double magnitude = Math.abs(value) + Math.abs(levelNow) + Math.abs(slopeNow * lagMean)
+                + Math.abs(curvatureNow * lag2Mean);
             for (int i = 0; i < m; i++) {
                 double mean = modeIntegral(b[i], inner, outer) / area;
                 double term = weighted[i] * mean;
@@ -505,7 +683,8 @@ public final class RadialSolver implements SpatialSolver {
                     + " temperature; ask for t > 0");
             }
             double s = Chebyshev.reference(r, 0, radius);
-            double g = -Chebyshev.value(j, s) / k;
+            double g = -Chebyshev.value(j, s) / k + slopeNow * r / ((n + 1) * alpha)
+                + curvatureNow * (2 * lag2[1] * r + 4 * lag2[2] * r * r * r);
             double magnitude = Math.abs(g);
             for (int i = 0; i < m; i++) {
                 double term = weighted[i] * b[i] * modeSlope(b[i] * r);

@@ -22,6 +22,26 @@ class RadialModesTest {
         }
     }
 
+    @Test
+    void largeArgumentBesselAgreesWithCommonsMathWhereBothApplyAndRootsGoPastIt() {
+        // Commons Math's BesselJ (valid to x = 10000) is the reference between 5000 and 10000
+        for (double x = 5000; x < 9999; x += 7.31) {
+            for (int order = 0; order <= 1; order++) {
+                // the reduction of x - pi/4 in double costs about 1e-15 near x = 5000
+                assertClose(BesselJ.value(order, x), RadialModes.bessel(order, x), 1e-14, "J" + order + "(" + x + ")");
+            }
+        }
+        // zeros past 10000: McMahon's expansion (Abramowitz and Stegun 9.5.12) to its first neglected term
+        int n = 4000;
+        double beta = (n - 0.25) * Math.PI;
+        double mcMahon = beta + 1 / (8 * beta) - 124 / (3 * Math.pow(8 * beta, 3));
+        assertClose(mcMahon, RadialModes.root(Shape.CYLINDER, n, Double.POSITIVE_INFINITY), 1e-9, "j_0,4000");
+        double z = RadialModes.root(Shape.CYLINDER, n, 2.5);
+        // the residual relative to z |J1|, about z / sqrt(z): the root is found to rounding
+        assertClose(0, (z * RadialModes.bessel(1, z) - 2.5 * RadialModes.bessel(0, z)) / Math.sqrt(z), 1e-12,
+            "(z J1 - Bi J0) / sqrt(z) at mode 4000");
+    }
+
     @ParameterizedTest(name = "{0}")
     @CsvSource({"CYLINDER, 1.2558, 1.2071", "SPHERE, 1.5708, 1.2732"})
     void firstRootAndCoefficientMatchIncropera2007Table5_1(Shape shape, double zeta1, double c1) {

@@ -1,0 +1,141 @@
+package eigencheck.oracle.series;
+
+import static eigencheck.oracle.testing.NumericAssertions.assertWithin;
+
+import eigencheck.oracle.Evaluation;
+import eigencheck.oracle.Oracle;
+import eigencheck.oracle.expr.Expression;
+import eigencheck.oracle.problem.BoundaryCondition;
+import eigencheck.oracle.problem.Cylinder;
+import eigencheck.oracle.problem.Domain;
+import eigencheck.oracle.problem.Material;
+import eigencheck.oracle.problem.Problem;
+import eigencheck.oracle.problem.Side;
+import eigencheck.oracle.problem.Sphere;
+import java.util.Map;
+import org.apache.commons.math3.analysis.integration.gauss.GaussIntegrator;
+import org.apache.commons.math3.analysis.integration.gauss.GaussIntegratorFactory;
+import org.apache.commons.math3.analysis.solvers.BrentSolver;
+import org.apache.commons.math3.special.BesselJ;
+import org.junit.jupiter.api.Test;
+
+/** The cylinder and the small-Biot sphere with a surface temperature or ambient that varies in time. */
+class RadialLevelTest {
+    private static Problem body(Domain domain, Material m, String initial, BoundaryCondition surface) {
+        return new Problem(domain, m, Expression.parse(initial, "r"), Expression.parse("0", "r", "t"),
+            Map.of(Side.SURFACE, surface));
+    }
+
+    /**
+     * u = c t + c r^2 / (2 (n + 1) alpha) solves u_t = alpha (r^n u_r)_r / r^n (common practice: uniform
+     * heating); its surface temperature, or its ambient u + (k/h) u_r for convection, rises by c t.
+     */
+    @Test
+    void uniformHeatingRateInACylinderAndASmallBiotSphere() {
+        double k = 3;
+        double alpha = 0.5;
+        double c = 4;
+        double radius = 0.2;
+        for (int n = 1; n <= 2; n++) {
+            double w = c / (2 * (n + 1) * alpha);
+            double h = n == 1 ? 40 : 0.5; // the sphere at Bi = 0.033, which the direct series takes
+            double ambient0 = w * radius * radius + k / h * 2 * w * radius;
+            Domain domain = n == 1 ? new Cylinder(radius) : new Sphere(radius);
+            BoundaryCondition surface = new BoundaryCondition.Robin(h,
+                Expression.parse(ambient0 + " + " + c + "*t", "t"));
+            Problem p = body(domain, new Material(k, k / alpha), w + "*r^2", surface);
+            Oracle o = Oracle.prepare(p, 2, 1e-10);
+            double limit = 1e-10 * o.temperatureScale();
+            for (double t : new double[] {0.003, 0.2, 1.7}) {
+                for (double r : new double[] {0, 0.05, 0.13, 0.2}) {
+                    double exact = c * t + w * r * r;
+                    assertWithin(exact, o.temperature(r, t), limit, (n == 1 ? "cylinder" : "sphere") + " u at r = " + r
+                        + ", t = " + t);
+                    assertWithin(2 * w * r, o.gradient(new double[] {r}, t)[0], limit / radius, "du/dr at r = " + r);
+                }
+            }
+            double mean = c * 1.7 + w * (Math.pow(0.15, n + 3) - Math.pow(0.05, n + 3)) / (n + 3)
+                / ((Math.pow(0.15, n + 1) - Math.pow(0.05, n + 1)) / (n + 1));
+            assertWithin(mean, o.cellAverage(new double[] {0.05}, new double[] {0.15}, 1.7), limit, "shell mean");
+        }
+    }
+
+    /**
+     * A rod of radius 0.05 m, initially 0, whose surface is held at b(t) = 300 (1 - exp(-t/40)). By
+     * Duhamel's theorem (Carslaw and Jaeger, Conduction of Heat in Solids, 2nd ed., 1959, section 1.14;
+     * recalled from memory) u = b(t) - int_0^t b'(t - s) F(r, s) ds, F the rod cooled from 1 with its
+     * surface at 0: sum_n 2 J0(z_n r/R) / (z_n J1(z_n)) exp(-z_n^2 alpha s / R^2), z_n the zeros of J0
+     * (the same book, section 7.4; recalled from memory), summed to 400 terms with Commons Math's BesselJ
+     * and Brent solver, independently of the oracle's modes.
+     */
+    @Test
+    void rodWithARisingSurfaceTemperatureMatchesDuhamelsTheorem() {
+        double radius = 0.05;
+        double alpha = 2e-5;
+        double k = 20;
+        Problem p = body(new Cylinder(radius), new Material(k, k / alpha), "0",
+            new BoundaryCondition.Dirichlet(Expression.parse("300*(1 - exp(-t/40))", "t")));
+        Oracle o = Oracle.prepare(p, 200, 1e-10);
+        Rod rod = new Rod(radius, alpha);
+        double limit = 1e-10 * o.temperatureScale();
+        for (double t : new double[] {5, 40, 200}) {
+            for (double r : new double[] {0, 0.01, 0.025, 0.04}) {
+                double[] lag = rod.duhamel(s -> 300 / 40.0 * Math.exp(-s / 40), r, t);
+                double exact = 300 * (1 - Math.exp(-t / 40)) - lag[0];
+                Evaluation e = o.temperature(r, t);
+                assertWithin(exact, e, limit, "u at r = " + r + ", t = " + t);
+                assertWithin(-lag[1], o.gradient(new double[] {r}, t)[0], limit / radius, "du/dr at r = " + r);
+            }
+        }
+        assertWithin(300 * (1 - Math.exp(-1)), o.temperature(radius, 40), limit, "on the surface u is the data");
+    }
+
+    /** The rod cooled from 1 with its surface at 0, and its Duhamel integral. */
+    private static final class Rod {
+        private final double radius;
+        private final double alpha;
+        private final double[] z = new double[400];
+
+        Rod(double radius, double alpha) {
+            this.radius = radius;
+            this.alpha = alpha;
+            BrentSolver solver = new BrentSolver(1e-15, 1e-15);
+            for (int n = 0; n < z.length; n++) {
+                // the n-th zero of J0 lies in ((n + 1/2) pi, (n + 1) pi) - pi/4 ... bracketed generously
+                double guess = (n + 0.75) * Math.PI;
+                z[n] = solver.solve(200, x -> BesselJ.value(0, x), guess - 0.5, guess + 0.5);
+            }
+        }
+
+        /** {F, dF/dr} at r after s; 1 and 0 before the surface is felt (points at least 0.2 R inside). */
+        double[] value(double r, double s) {
+            if (alpha * s / (radius * radius) < 2.5e-4) {
+                return new double[] {1, 0};
+            }
+            double f = 0;
+            double df = 0;
+            for (double zn : z) {
+                double c = 2 / (zn * BesselJ.value(1, zn)) * Math.exp(-zn * zn * alpha * s / (radius * radius));
+                f += c * BesselJ.value(0, zn * r / radius);
+                df -= c * zn / radius * BesselJ.value(1, zn * r / radius);
+            }
+            return new double[] {f, df};
+        }
+
+        /** {int_0^t b'(t - s) F(r, s) ds, the same with dF/dr}, 20-point rules on 200 panels. */
+        double[] duhamel(java.util.function.DoubleUnaryOperator rate, double r, double t) {
+            double[] sum = new double[2];
+            for (int i = 0; i < 200; i++) {
+                GaussIntegrator rule = new GaussIntegratorFactory().legendre(20, t * i / 200, t * (i + 1) / 200);
+                for (int q = 0; q < rule.getNumberOfPoints(); q++) {
+                    double s = rule.getPoint(q);
+                    double[] f = value(r, s);
+                    double weight = rule.getWeight(q) * rate.applyAsDouble(t - s);
+                    sum[0] += weight * f[0];
+                    sum[1] += weight * f[1];
+                }
+            }
+            return sum;
+        }
+    }
+}
