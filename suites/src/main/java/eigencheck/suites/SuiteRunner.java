@@ -262,7 +262,8 @@ public final class SuiteRunner {
             }
             String name = fieldName(c, f);
             eigencheck.suites.norms.Reference ref = c.manufactured() != null
-                ? new eigencheck.suites.norms.ManufacturedReference(c.manufactured(), t, 0)
+                ? new eigencheck.suites.norms.ManufacturedReference(c.manufactured(), t, 0,
+                    c.problem() != null && c.problem().domain() instanceof eigencheck.oracle.problem.Cylinder)
                 : referenceOf(oracle, t);
             boolean slabProblem = c.problem() != null && c.problem().domain() instanceof Slab;
             String suffix = "@t=" + fmt(t);

@@ -99,6 +99,41 @@ public final class Manufactured {
         return new Problem(domain, material, initial, source, boundary);
     }
 
+    /**
+     * The cylinder or sphere problem whose exact solution is {@code u}, an expression of (r, t):
+     * Q = rho c u_t - k (u_rr + n u_r / r), n = 1 (cylinder) or 2 (sphere), and the surface data as for
+     * a slab's face at x = R. Below r = 1e-6 R the quotient u_r / r is replaced by u_rr (its limit for
+     * a u regular at the centre, u_r(0) = 0; the difference is u(0) r^2 / 3, under 1e-12 of u R^2),
+     * so the source has its true value at r = 0, where a solver's axis nodes sample it.
+     *
+     * @throws IllegalArgumentException if u uses variables other than r and t, or the domain is not radial
+     */
+    public static Problem radial(Expression u, Domain domain, Material material, Face surface) {
+        int n;
+        double radius;
+        if (domain instanceof Cylinder c) {
+            n = 1;
+            radius = c.radius();
+        } else if (domain instanceof Sphere s) {
+            n = 2;
+            radius = s.radius();
+        } else {
+            throw new IllegalArgumentException("manufactured: " + domain + " is not a cylinder or sphere");
+        }
+        Expression ur = u.over("r", "t");
+        double k = material.conductivity();
+        Expression first = ur.derivative("r");
+        Expression second = first.derivative("r");
+        double near = 1e-6 * radius;
+        String quotient = "(step(r - " + near + ")*(" + first.formula() + ")/max(r, " + near + ") + (1 - step(r - "
+            + near + "))*(" + second.formula() + "))";
+        Expression laplacian = Expression.parse("(" + second.formula() + ") + " + n + "*" + quotient, "r", "t");
+        Expression source = ur.derivative("t").linear(material.volumetricHeatCapacity(), laplacian, -k);
+        Map<Side, BoundaryCondition> boundary = new EnumMap<>(Side.class);
+        boundary.put(Side.SURFACE, face(ur, "r", radius, +1, surface, k));
+        return new Problem(domain, material, ur.substitute("t", 0.0), source, boundary);
+    }
+
     /** Condition at x = position with outward normal sign (du/dn = sign * u_x). */
     private static BoundaryCondition face(Expression u, double position, int sign, Face face, double k) {
         return face(u, "x", position, sign, face, k);

@@ -61,6 +61,42 @@ class RadialLevelTest {
     }
 
     /**
+     * Manufactured u = 2 + 3 t + 40 r^2 - 300 r^4 (common practice): Q = rho c 3 - k (2 (n + 1) 40 - 4 (n + 3) 300 r^2),
+     * constant in time and not uniform; the surface data rise by 3 t (a moving level). The derived source must
+     * have its true value at r = 0, and the oracle must reproduce u in every route: the cylinder with a fixed or
+     * convective surface, the sphere through the slab mapping (Dirichlet) and the direct series (Bi = 0.02).
+     */
+    @Test
+    void manufacturedPolynomialInEveryRadialRoute() {
+        double k = 2;
+        double heatCapacity = 5;
+        double radius = 0.1;
+        Expression u = Expression.parse("2 + 3*t + 40*r^2 - 300*r^4", "r", "t");
+        Object[][] routes = {{new Cylinder(radius), eigencheck.oracle.problem.Manufactured.Face.dirichlet()},
+            {new Cylinder(radius), eigencheck.oracle.problem.Manufactured.Face.robin(30)},
+            {new Sphere(radius), eigencheck.oracle.problem.Manufactured.Face.dirichlet()},
+            {new Sphere(radius), eigencheck.oracle.problem.Manufactured.Face.robin(0.4)}};
+        for (Object[] route : routes) {
+            Domain domain = (Domain) route[0];
+            int n = domain instanceof Cylinder ? 1 : 2;
+            Problem p = eigencheck.oracle.problem.Manufactured.radial(u, domain, new Material(k, heatCapacity),
+                (eigencheck.oracle.problem.Manufactured.Face) route[1]);
+            double q0 = heatCapacity * 3 - k * 2 * (n + 1) * 40;
+            assertWithin(q0, new Evaluation(p.source().value(0, 0.5), 0), 1e-12 * Math.abs(q0), "Q at the centre");
+            double r1 = 0.037;
+            double q1 = heatCapacity * 3 - k * (2 * (n + 1) * 40 - 4 * (n + 3) * 300 * r1 * r1);
+            assertWithin(q1, new Evaluation(p.source().value(r1, 0.5), 0), 1e-12 * Math.abs(q1), "Q at r = 0.037");
+            Oracle o = Oracle.prepare(p, 1, 1e-10);
+            for (double t : new double[] {0.01, 0.3, 1}) {
+                for (double r : new double[] {0, 0.02, 0.05, 0.09, radius}) {
+                    assertWithin(u.value(r, t), o.temperature(r, t), 1e-10 * o.temperatureScale(), domain + " "
+                        + route[1] + " at r = " + r + ", t = " + t);
+                }
+            }
+        }
+    }
+
+    /**
      * A rod of radius 0.05 m, initially 0, whose surface is held at b(t) = 300 (1 - exp(-t/40)). By
      * Duhamel's theorem (Carslaw and Jaeger, Conduction of Heat in Solids, 2nd ed., 1959, section 1.14;
      * recalled from memory) u = b(t) - int_0^t b'(t - s) F(r, s) ds, F the rod cooled from 1 with its

@@ -167,7 +167,9 @@ public final class SuiteFile {
         String shapeName = o.fields().get("domain") instanceof Node.Obj d0 && d0.fields().get("shape") instanceof Node.Scalar s0
             && s0.value() instanceof String text ? text : "slab";
         boolean planar = shapeName.equals("rectangle") || shapeName.equals("box");
+        boolean radial = shapeName.equals("cylinder") || shapeName.equals("sphere");
         eigencheck.oracle.expr.Expression u = sol == null ? null : planar ? eigencheck.oracle.expr.Expression.parse("0")
+            : radial ? c.expression(sol, new String[] {"r", "t"}, "u is an expression of r and t")
             : c.expression(sol, new String[] {"x", "t"}, "u is an expression of x and t");
         Node domain = c.required(o, "domain", "for example {shape: slab, length: 1} or {shape: rectangle, lengthX: 1,"
             + " lengthY: 0.5}");
@@ -200,6 +202,23 @@ public final class SuiteFile {
             Problem derived = eigencheck.oracle.problem.Manufactured.cartesian(surface, carrier.domain(),
                 carrier.material(), kinds);
             return new Object[] {derived, surface, lengths};
+        }
+        if (radial) {
+            // u(r, t) on a cylinder or sphere: the source and surface data derived for the solver
+            Node boundary = c.required(o, "boundary", "the kind of the surface: {surface: dirichlet | neumann"
+                + " | {robin: h}}");
+            Problem carrier = boundary == null ? null : carrier(c, o, domain, material, List.of("surface"));
+            if (carrier == null) {
+                return null;
+            }
+            Map<eigencheck.oracle.problem.Side, eigencheck.oracle.problem.Manufactured.Face> kinds = faceKinds(c,
+                boundary, List.of("surface"), "{surface: dirichlet | neumann | {robin: h}}");
+            if (kinds == null) {
+                return null;
+            }
+            Problem derived = eigencheck.oracle.problem.Manufactured.radial(u, carrier.domain(), carrier.material(),
+                kinds.get(eigencheck.oracle.problem.Side.SURFACE));
+            return new Object[] {derived, u, new double[] {carrier.domain().characteristicLength()}};
         }
         Node boundary = c.required(o, "boundary", "the kind of each face: {xmin: dirichlet, xmax: {robin: 25}}");
         if (boundary == null) {

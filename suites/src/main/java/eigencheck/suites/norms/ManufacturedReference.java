@@ -5,8 +5,9 @@ import java.util.List;
 
 /**
  * A manufactured solution as the reference: u(x, t) on a slab (read along one axis, constant across
- * the others), u(x, y, t) on a rectangle or u(x, y, z, t) on a box; values from the expression itself
- * and gradients from its exact symbolic derivatives.
+ * the others), u(x, y, t) on a rectangle, u(x, y, z, t) on a box, or u(r, t) on a cylinder (r the
+ * distance from the z axis) or sphere (from the centre; a file with one coordinate gives r itself);
+ * values from the expression itself and gradients from its exact symbolic derivatives.
  */
 public final class ManufacturedReference implements Reference {
     private final Expression u;
@@ -14,12 +15,31 @@ public final class ManufacturedReference implements Reference {
     private final int dimension;
     private final double time;
     private final int axis;
+    private final boolean radial;
+    private final boolean cylinder;
 
     /**
      * @param solution an expression of (x, t), (x, y, t) or (x, y, z, t)
      * @param axis the output coordinate read as x for a one-dimensional solution
      */
     public ManufacturedReference(Expression solution, double time, int axis) {
+        this(solution, time, axis, false);
+    }
+
+    /**
+     * @param cylinder for a solution of (r, t): r is sqrt(x^2 + y^2), not the distance from the origin
+     */
+    public ManufacturedReference(Expression solution, double time, int axis, boolean cylinder) {
+        this.radial = solution.variables().contains("r");
+        this.cylinder = cylinder;
+        if (radial) {
+            this.dimension = 1;
+            this.u = solution.over("r", "t");
+            this.gradient = new Expression[] {u.derivative("r")};
+            this.time = time;
+            this.axis = axis;
+            return;
+        }
         boolean planar = solution.variables().contains("y");
         boolean solid = solution.variables().contains("z");
         this.dimension = solid ? 3 : planar ? 2 : 1;
@@ -39,6 +59,23 @@ public final class ManufacturedReference implements Reference {
         int n = xyz.length / 3;
         double[] arg = new double[dimension + 1];
         for (int i = 0; i < n; i++) {
+            if (radial) {
+                double x = xyz[3 * i];
+                double y = xyz[3 * i + 1];
+                double z = cylinder ? 0 : xyz[3 * i + 2];
+                double r = Math.sqrt(x * x + y * y + z * z);
+                arg[0] = r;
+                arg[1] = time;
+                value[i] = u.value(arg);
+                if (grad != null) {
+                    double dr = gradient[0].value(arg);
+                    for (int c = 0; c < 3; c++) {
+                        double component = c == 2 && cylinder ? 0 : xyz[3 * i + c];
+                        grad[3 * i + c] = r > 0 ? dr * component / r : 0;
+                    }
+                }
+                continue;
+            }
             if (dimension == 1) {
                 arg[0] = xyz[3 * i + axis];
             } else {

@@ -16,7 +16,7 @@ import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
-/** Manufactured cases on the rectangle and box in suite files. */
+/** Manufactured cases on the rectangle, box, cylinder and sphere in suite files. */
 class SuiteFileTest {
     @TempDir
     Path dir;
@@ -77,5 +77,41 @@ class SuiteFileTest {
         Suite.Case c = SuiteFile.read(suite).cases().get(0);
         assertNull(c.problem());
         assertEquals(3.0, c.manufactured().value(1, 2, 1), 1e-12);
+    }
+    @Test
+    void cylinderCaseDerivesSourceAndSurfaceAndReadsRFromTheMesh() throws IOException, InputException {
+        // u = 1 + t + r^2: Q = rho c - k (u_rr + u_r / r) = 2 - 3 * 4 = -10 everywhere, r = 0 included; the
+        // convective surface's ambient is u + (k/h) u_r = 1 + t + 0.25 + (3/6) (2 * 0.5) at R = 0.5 (calculus)
+        Path suite = dir.resolve("suite.yaml");
+        Files.writeString(suite, """
+            suite: rod
+            cases:
+              - name: rod-mms
+                manufactured:
+                  solution: "1 + t + r^2"
+                  domain: {shape: cylinder, radius: 0.5}
+                  material: {conductivity: 3, volumetricHeatCapacity: 2}
+                  boundary: {surface: {robin: 6}}
+                solver: {command: [solve, "{problem}", "{output}"], output: out.vtu}
+                levels: {cells: [4, 8]}
+                compare: {times: [1], norms: [l2]}
+                expect: {norm: l2, order: 2}
+            """);
+        Suite.Case c = SuiteFile.read(suite).cases().get(0);
+        Problem p = c.problem();
+        assertEquals(-10.0, p.source().value(0, 0.3), 1e-12, "Q at the axis");
+        assertEquals(-10.0, p.source().value(0.31, 0.3), 1e-12, "Q at r = 0.31");
+        BoundaryCondition.Robin surface = (BoundaryCondition.Robin) p.condition(Side.SURFACE);
+        assertEquals(1 + 2 + 0.25 + 0.5, surface.ambient().value(2), 1e-12, "ambient at t = 2");
+        // the reference reads r = sqrt(x^2 + y^2) for a cylinder (z along the axis), with the radial gradient
+        eigencheck.suites.norms.ManufacturedReference ref = new eigencheck.suites.norms.ManufacturedReference(
+            c.manufactured(), 1, 0, true);
+        double[] value = new double[1];
+        double[] gradient = new double[3];
+        ref.evaluate(new double[] {0.3, 0.4, 7}, value, gradient);
+        assertEquals(1 + 1 + 0.25, value[0], 1e-12);
+        assertEquals(2 * 0.3, gradient[0], 1e-12);
+        assertEquals(2 * 0.4, gradient[1], 1e-12);
+        assertEquals(0, gradient[2], 0);
     }
 }
