@@ -40,27 +40,30 @@ final class CommonLevel {
     private final double[][][] suffix;
     private final double[][] whole;
     final double levelMax;
-    final double slopeMax;
+    /** max |r|, r = b' - sigma the rate the lag follows. */
+    final double rateMax;
     final double curvatureMax;
-    /** b'(0), which enters the transient's initial projections. */
-    final double initialSlope;
+    /** r(0), which enters the transient's initial projections. */
+    final double initialRate;
 
     /**
      * @param level b(t) - b(0) over the single variable t
+     * @param heating sigma(t) = (Q(t) - Q(0)) / (rho c), a uniform source's change in K/s over t, or null:
+     *     the lag then follows the rate r = b' - sigma instead of b' (u = b + S - r P + v, v's forcing r' P)
      * @param axes the body's axes (ensured here to {@link #CUTOFF} modes)
      */
-    CommonLevel(Expression level, double horizon, double alpha, AxisModes[] axes) {
+    CommonLevel(Expression level, Expression heating, double horizon, double alpha, AxisModes[] axes) {
         this.level = level;
-        this.slope = level.derivative("t");
+        this.slope = heating == null ? level.derivative("t") : level.derivative("t").linear(1, heating, -1);
         this.curvature = slope.derivative("t");
         this.duhamel = new ScheduleIntegral(curvature);
         this.alpha = alpha;
         this.axes = axes;
         double[] sizes = sizes(level, slope, curvature, horizon);
         this.levelMax = sizes[0];
-        this.slopeMax = sizes[1];
+        this.rateMax = sizes[1];
         this.curvatureMax = sizes[2];
-        this.initialSlope = slope.value(0);
+        this.initialRate = slope.value(0);
         int d = axes.length;
         active = new boolean[d];
         double[][] magnitude = new double[d][];
@@ -148,7 +151,8 @@ final class CommonLevel {
         return level.value(t);
     }
 
-    double slope(double t) {
+    /** r(t) = b'(t) - sigma(t). */
+    double rate(double t) {
         return slope.value(t);
     }
 

@@ -138,10 +138,22 @@ public final class TensorSolver implements SpatialSolver {
                 + " then drifts with the net heat input and the steady state is fixed only up to a constant, which this"
                 + " version does not solve in 2D and 3D; give at least one face a temperature or convection");
         }
-        variation += 2 * requireConstantInTime(problem.source(), "source", timeHorizon) * lengthScale * lengthScale / k;
+        double[] mismatch = new double[1];
+        Expression heating = steady ? null : heatingOf(problem, timeHorizon, mismatch);
+        if (heating == null) {
+            variation += 2 * requireConstantInTime(problem.source(), "source", timeHorizon) * lengthScale * lengthScale / k;
+        } else {
+            variation += 2 * mismatch[0] * lengthScale * lengthScale / k;
+            if (levelExpression == null) {
+                levelExpression = Expression.constant(0, "t");
+            }
+        }
         this.initial = problem.initial();
-        this.level = levelExpression == null ? null : new CommonLevel(levelExpression, timeHorizon, alpha, axes);
-        this.scale = scaleOf(problem) + (level == null ? 0 : level.levelMax);
+        this.level = levelExpression == null ? null
+            : new CommonLevel(levelExpression, heating, timeHorizon, alpha, axes);
+        // a uniform source that changes in time moves the temperature by up to max |sigma| T
+        double heated = heating == null ? 0 : CommonLevel.sizes(heating, heating, heating, timeHorizon)[0] * timeHorizon;
+        this.scale = scaleOf(problem) + (level == null ? 0 : level.levelMax) + heated;
         Expression q = problem.source();
         // a source that is rounding noise (a manufactured source whose terms cancel) is taken as zero: its
         // sampled size, doubled, joins the bound; fitting the noise would only chase rounding
@@ -192,9 +204,9 @@ public final class TensorSolver implements SpatialSolver {
         }
         this.timeVariation = variation;
         this.shift = shiftOf();
-        if (level != null && level.slopeMax > 0) {
+        if (level != null && level.rateMax > 0) {
             // P's own tolerance: its error, times max|b'|, within an eighth of the budget (P's scale is L^2/alpha)
-            double lagTolerance = tolerance * scale * alpha / (8 * level.slopeMax * lengthScale * lengthScale);
+            double lagTolerance = tolerance * scale * alpha / (8 * level.rateMax * lengthScale * lengthScale);
             TensorSolver p = new TensorSolver(lagProblem(problem), 0, Math.max(1e-14, Math.min(0.25, lagTolerance)));
             this.lag = p.at(Double.POSITIVE_INFINITY);
             this.lagFaces = p.dataFaces();
@@ -247,6 +259,57 @@ public final class TensorSolver implements SpatialSolver {
             }
         }
         return null;
+    }
+
+    /**
+     * sigma(t) = (Q(c, t) - Q(c, 0)) / (rho c) at the body's centre c, over t, when the source names t;
+     * null when it does not change in time. A source that changes other than uniformly (Q(p, t) - Q(p, 0)
+     * = rho c sigma(t) to 1e-12 of |Q| at 9^d points and 16 times) is refused; the largest difference
+     * found (W/m^3) goes into {@code mismatch[0]}.
+     */
+    private Expression heatingOf(Problem problem, double timeHorizon, double[] mismatch) {
+        Expression q = problem.source();
+        if (!q.variables().contains("t") || q.isIndependentOf("t") || !(timeHorizon > 0)) {
+            return null;
+        }
+        double rhoC = problem.material().volumetricHeatCapacity();
+        Expression at = q;
+        for (int i = 0; i < d; i++) {
+            if (at.variables().contains(NAMES[i])) {
+                at = at.substitute(NAMES[i], len[i] / 2);
+            }
+        }
+        at = at.over("t");
+        Expression sigma = at.linear(1 / rhoC, Expression.constant(1, "t"), -at.value(0) / rhoC);
+        double worst = 0;
+        boolean changes = false;
+        int n = 9;
+        int count = (int) Math.pow(n, d);
+        double[] p = new double[d];
+        for (int c = 0; c < count; c++) {
+            int rest = c;
+            for (int i = 0; i < d; i++) {
+                p[i] = len[i] * (rest % n) / (n - 1.0);
+                rest /= n;
+            }
+            double q0 = valueAt(q, p, 0);
+            for (int j = 1; j <= 16; j++) {
+                double t = timeHorizon * j / 16;
+                double qt = valueAt(q, p, t);
+                double miss = Math.abs(qt - q0 - rhoC * sigma.value(t));
+                changes |= Math.abs(qt - q0) > 1e-12 * Math.max(1, Math.abs(q0));
+                worst = Math.max(worst, miss);
+                if (miss > 1e-12 * Math.max(1, Math.abs(qt))) {
+                    throw new OracleException(Reason.UNSUPPORTED, "source: changes in time other than uniformly (at "
+                        + java.util.Arrays.toString(p) + " and t = " + t + " s it is " + qt + ", not "
+                        + (q0 + rhoC * sigma.value(t)) + "); this version solves rectangles and boxes whose source is"
+                        + " constant in time or changes in time by the same amount everywhere (Q(x, t) = Q_0(x) +"
+                        + " q(t)); for other time-dependent sources use a manufactured solution");
+                }
+            }
+        }
+        mismatch[0] = worst;
+        return changes ? sigma : null;
     }
 
     /**
@@ -1256,7 +1319,7 @@ public final class TensorSolver implements SpatialSolver {
                 err += tb.error * weightMax;
                 uNorm += tb.norm * tb.profileNorm;
             }
-            if (level != null && level.initialSlope != 0) {
+            if (level != null && level.initialRate != 0) {
                 // + b'(0) P: P_J = 1_J / lambda_J exactly, and ||P|| <= ||1|| / lambda_min
                 double lambdaMin = 0;
                 double volume = 1;
@@ -1276,10 +1339,10 @@ public final class TensorSolver implements SpatialSolver {
                         lambda += axes[i].mu[index[i]] * axes[i].mu[index[i]];
                     }
                     if (one != 0) {
-                        c[cIndex] += level.initialSlope * one / (alpha * lambda);
+                        c[cIndex] += level.initialRate * one / (alpha * lambda);
                     }
                 }
-                uNorm += Math.abs(level.initialSlope) * Math.sqrt(volume) / lambdaMin;
+                uNorm += Math.abs(level.initialRate) * Math.sqrt(volume) / lambdaMin;
             }
             error = err;
             double normLower = 1;
@@ -1367,7 +1430,7 @@ public final class TensorSolver implements SpatialSolver {
             if (lagSeries == null || (e.reason() != Reason.TOO_MANY_MODES && e.reason() != Reason.NOT_CERTIFIED)) {
                 throw e;
             }
-            return lagSeries.value(p, o, tolerance * scale / (8 * level.slopeMax));
+            return lagSeries.value(p, o, tolerance * scale / (8 * level.rateMax));
         }
     }
 
@@ -1435,7 +1498,7 @@ public final class TensorSolver implements SpatialSolver {
             this.budget = tolerance * scale;
             boolean moving = level != null && t > 0 && t < Double.POSITIVE_INFINITY;
             this.levelNow = moving ? level.level(t) : 0;
-            this.slopeNow = moving ? level.slope(t) : 0;
+            this.slopeNow = moving ? level.rate(t) : 0;
             if (t == Double.POSITIVE_INFINITY || t == 0) {
                 transientOnly = null;
                 m = null;

@@ -207,6 +207,35 @@ class MovingLevelTest {
         }
     }
 
+    /**
+     * u = sin t + c |x|^2 (common practice): the sides move by sin t and the source is
+     * rho c (cos t - 2 d c alpha), uniform in space and changing in time: the lag follows r = b' - sigma.
+     */
+    @Test
+    void uniformSourceChangingInTimeInARectangle() {
+        double k = 1.5;
+        double alpha = 0.3;
+        Expression exact = xyt("sin(t) + 2*(x^2 + y^2)");
+        Map<Side, Manufactured.Face> kinds = new EnumMap<>(Side.class);
+        kinds.put(Side.XMIN, Manufactured.Face.dirichlet());
+        kinds.put(Side.XMAX, Manufactured.Face.dirichlet());
+        kinds.put(Side.YMIN, Manufactured.Face.neumann());
+        kinds.put(Side.YMAX, Manufactured.Face.dirichlet());
+        Problem p = Manufactured.cartesian(exact, new Rectangle(0.5, 0.4), new Material(k, k / alpha), kinds);
+        Oracle o = Oracle.prepare(p, 3, 1e-10);
+        SplittableRandom random = new SplittableRandom(12);
+        for (int i = 0; i < 30; i++) {
+            double x = (0.05 + 0.9 * random.nextDouble()) * 0.5;
+            double y = (0.05 + 0.9 * random.nextDouble()) * 0.4;
+            double t = 0.02 + 2.9 * random.nextDouble();
+            assertWithin(exact.value(x, y, t), o.temperature(new double[] {x, y}, t), 1e-10 * o.temperatureScale(),
+                "u at " + x + ", " + y + ", " + t);
+        }
+        Problem spot = new Problem(p.domain(), p.material(), p.initial(), xyt("(1 + t)*x"), p.boundary());
+        OracleException e = assertThrows(OracleException.class, () -> Oracle.prepare(spot, 1, 1e-8));
+        assertTrue(e.getMessage().startsWith("source: changes in time other than uniformly"), e.getMessage());
+    }
+
     @Test
     void refusesLevelsThatDifferAndFluxesThatChange() {
         Domain plate = new Rectangle(1, 1);

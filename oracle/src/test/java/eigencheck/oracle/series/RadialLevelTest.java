@@ -1,5 +1,6 @@
 package eigencheck.oracle.series;
 
+import static eigencheck.oracle.testing.NumericAssertions.assertClose;
 import static eigencheck.oracle.testing.NumericAssertions.assertWithin;
 
 import eigencheck.oracle.Evaluation;
@@ -82,15 +83,50 @@ class RadialLevelTest {
             Problem p = eigencheck.oracle.problem.Manufactured.radial(u, domain, new Material(k, heatCapacity),
                 (eigencheck.oracle.problem.Manufactured.Face) route[1]);
             double q0 = heatCapacity * 3 - k * 2 * (n + 1) * 40;
-            assertWithin(q0, new Evaluation(p.source().value(0, 0.5), 0), 1e-12 * Math.abs(q0), "Q at the centre");
+            assertClose(q0, p.source().value(0, 0.5), 1e-12 * Math.abs(q0), "Q at the centre");
             double r1 = 0.037;
             double q1 = heatCapacity * 3 - k * (2 * (n + 1) * 40 - 4 * (n + 3) * 300 * r1 * r1);
-            assertWithin(q1, new Evaluation(p.source().value(r1, 0.5), 0), 1e-12 * Math.abs(q1), "Q at r = 0.037");
+            assertClose(q1, p.source().value(r1, 0.5), 1e-12 * Math.abs(q1), "Q at r = 0.037");
             Oracle o = Oracle.prepare(p, 1, 1e-10);
             for (double t : new double[] {0.01, 0.3, 1}) {
                 for (double r : new double[] {0, 0.02, 0.05, 0.09, radius}) {
                     assertWithin(u.value(r, t), o.temperature(r, t), 1e-10 * o.temperatureScale(), domain + " "
                         + route[1] + " at r = " + r + ", t = " + t);
+                }
+            }
+        }
+    }
+
+    /**
+     * Manufactured u = 20 + 5 sin(t) - beta t P1(r) + beta P2(r) with P1 = (R^2 - r^2)/(2 (n+1) alpha) and
+     * P2 its quasi-static successor (-alpha Lap P2 = P1, P2(R) = 0): by direct differentiation (common
+     * practice) the source is rho c (5 cos t - beta t), uniform in space and changing in time, and the surface
+     * temperature 20 + 5 sin t moves; both the level and the uniform heating enter the lag's rate.
+     */
+    @Test
+    void uniformSourceChangingInTimeWithAMovingSurface() {
+        double k = 4;
+        double alpha = 0.5;
+        double radius = 0.3;
+        double beta = 7;
+        for (int n = 1; n <= 2; n++) {
+            double p1 = 1 / (2 * (n + 1) * alpha);
+            double c4 = 1 / (8.0 * (n + 1) * (n + 3) * alpha * alpha);
+            double c2 = -radius * radius * p1 / (2 * (n + 1) * alpha);
+            double c0 = -c2 * radius * radius - c4 * Math.pow(radius, 4);
+            String text = "20 + 5*sin(t) - " + beta + "*t*" + p1 + "*(" + radius * radius + " - r^2) + " + beta + "*("
+                + c0 + " + " + c2 + "*r^2 + " + c4 + "*r^4)";
+            Expression u = Expression.parse(text, "r", "t");
+            Domain domain = n == 1 ? new Cylinder(radius) : new Sphere(radius);
+            Problem p = eigencheck.oracle.problem.Manufactured.radial(u, domain, new Material(k, k / alpha),
+                eigencheck.oracle.problem.Manufactured.Face.dirichlet());
+            double q = p.source().value(0.1, 0.7);
+            assertClose(k / alpha * (5 * Math.cos(0.7) - beta * 0.7), q, 1e-12 * Math.abs(q), "the derived source is uniform");
+            Oracle o = Oracle.prepare(p, 2, 1e-10);
+            for (double t : new double[] {0.05, 0.8, 2}) {
+                for (double r : new double[] {0, 0.1, 0.25, radius}) {
+                    assertWithin(u.value(r, t), o.temperature(r, t), 1e-10 * o.temperatureScale(),
+                        domain + " u at r = " + r + ", t = " + t);
                 }
             }
         }
