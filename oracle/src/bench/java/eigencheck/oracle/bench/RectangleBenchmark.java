@@ -31,7 +31,9 @@ import org.openjdk.jmh.annotations.Warmup;
  * side carries an elliptic series, which needs thousands of modes for the cell centres nearest to it.
  * That series does not change in time: one bulk call computes it once per distinct point and shares it
  * among the 10 times. The variant {@code insulatedSides} makes the y sides insulated (no face series:
- * the source part and the transient alone).
+ * the source part and the transient alone); {@code risingAmbient} keeps the four convective sides and
+ * lets their common ambient rise as 300 (1 - exp(-t/200)), a moving level: the lag P and the particular
+ * modes join, and P's series at the cell centres nearest the sides is shared among the times too.
  *
  * <pre>mvn -q -pl oracle -Pbenchmark test-compile exec:exec -Dbench.args="RectangleBenchmark"</pre>
  */
@@ -46,7 +48,7 @@ public class RectangleBenchmark {
     static final int NY = 250;
     static final int TIMES = 10;
 
-    @Param({"convecting", "insulatedSides"})
+    @Param({"convecting", "insulatedSides", "risingAmbient"})
     String sides;
 
     Problem problem;
@@ -56,16 +58,18 @@ public class RectangleBenchmark {
     double[] value;
     double[] bound;
 
-    static Problem problem(boolean insulated) {
+    static Problem problem(String sides) {
+        boolean insulated = "insulatedSides".equals(sides);
+        String ambient = "risingAmbient".equals(sides) ? "300*(1 - exp(-t/200))" : "0";
         Map<Side, BoundaryCondition> faces = new EnumMap<>(Side.class);
-        faces.put(Side.XMIN, new BoundaryCondition.Robin(40, Expression.parse("0", "y", "t")));
-        faces.put(Side.XMAX, new BoundaryCondition.Robin(200, Expression.parse("0", "y", "t")));
+        faces.put(Side.XMIN, new BoundaryCondition.Robin(40, Expression.parse(ambient, "y", "t")));
+        faces.put(Side.XMAX, new BoundaryCondition.Robin(200, Expression.parse(ambient, "y", "t")));
         if (insulated) {
             faces.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
             faces.put(Side.YMAX, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
         } else {
-            faces.put(Side.YMIN, new BoundaryCondition.Robin(60, Expression.parse("0", "x", "t")));
-            faces.put(Side.YMAX, new BoundaryCondition.Robin(100, Expression.parse("0", "x", "t")));
+            faces.put(Side.YMIN, new BoundaryCondition.Robin(60, Expression.parse(ambient, "x", "t")));
+            faces.put(Side.YMAX, new BoundaryCondition.Robin(100, Expression.parse(ambient, "x", "t")));
         }
         return new Problem(new Rectangle(0.2, 0.1), new Material(15, 4e6),
             Expression.parse("20 + 300*x*y", "x", "y"),
@@ -78,7 +82,7 @@ public class RectangleBenchmark {
 
     @Setup(Level.Trial)
     public void setUp() {
-        problem = problem("insulatedSides".equals(sides));
+        problem = problem(sides);
         oracle = Oracle.prepare(problem, time(TIMES - 1), 1e-8);
         int n = NX * NY * TIMES;
         points = new double[2 * n];
