@@ -1427,11 +1427,34 @@ public final class TensorSolver implements SpatialSolver {
         try {
             return lag.temperature(p, o);
         } catch (OracleException e) {
-            if (lagSeries == null || (e.reason() != Reason.TOO_MANY_MODES && e.reason() != Reason.NOT_CERTIFIED)) {
+            if (e.reason() != Reason.TOO_MANY_MODES && e.reason() != Reason.NOT_CERTIFIED) {
                 throw e;
+            }
+            if (lagSeries == null) {
+                throw lagRefused(p, o, "u", e);
             }
             return lagSeries.value(p, o, tolerance * scale / (8 * level.rateMax));
         }
+    }
+
+    /** The gradient of P into {@code out}; returns its bound. */
+    private double lagGradient(double[] p, int o, double[] out) {
+        try {
+            return lag.gradient(p, o, out, 0);
+        } catch (OracleException e) {
+            if (e.reason() != Reason.TOO_MANY_MODES && e.reason() != Reason.NOT_CERTIFIED) {
+                throw e;
+            }
+            throw lagRefused(p, o, "grad u", e);
+        }
+    }
+
+    private OracleException lagRefused(double[] p, int o, String what, OracleException cause) {
+        double[] point = java.util.Arrays.copyOfRange(p, o, o + d);
+        return new OracleException(cause.reason(), "oracle: " + what + " at " + java.util.Arrays.toString(point)
+            + " needs the lag behind the moving level (P, with -alpha Laplace P = 1), whose series cannot reach a"
+            + " point this near a convective or flux " + (d == 3 ? "face of a box" : "side (gradients)") + " in this"
+            + " version; move the point inside, or hold the level constant (" + cause.getMessage() + ")");
     }
 
     /**
@@ -1757,7 +1780,7 @@ public final class TensorSolver implements SpatialSolver {
             }
             if (lag != null && slopeNow != 0) {
                 double[] lagged = new double[d];
-                bound += Math.abs(slopeNow) * lag.gradient(p, o, lagged, 0);
+                bound += Math.abs(slopeNow) * lagGradient(p, o, lagged);
                 for (int i = 0; i < d; i++) {
                     g[i] -= slopeNow * lagged[i];
                 }
