@@ -68,8 +68,15 @@ public final class RadialSolver implements SpatialSolver {
     private final Expression curvature;
     private final double thirdMax;
     private final ScheduleIntegral duhamel;
-    private final double lagConstant; // P1(r) = (R^2 - r^2) / (2 (n + 1) alpha) + lagConstant
-    private final double[] lag2 = new double[3]; // P2(r) = lag2[0] + lag2[1] r^2 + lag2[2] r^4
+    // P1 and P2 as polynomials in r^2 (index j: the coefficient of r^(2j))
+    private final double[] lag1;
+    private final double[] lag2;
+    // a surface flux that changes in time, q(t) = q(0) + dq(t): u gains dq(t) psi(r) + m(t) - dq' Psi1 + dq'' Psi2,
+    // psi = (r^2 - mean r^2) / (2 k R) (k psi'(R) = 1, mean 0), Psi1 = A^-1 psi and Psi2 = A^-1 Psi1 (mean 0), m the
+    // mean rise (n + 1)/(rho c R) int dq plus that of a uniform source's change; null for a temperature surface
+    private final double[] fluxShape;
+    private final ScheduleIntegral meanRise;
+    private final double riseMax;
 
     public RadialSolver(Problem problem, double timeHorizon, double tolerance) {
         if (!(tolerance > 0 && tolerance < 1)) {
@@ -90,19 +97,18 @@ public final class RadialSolver implements SpatialSolver {
         this.initial = problem.initial();
         Expression source = problem.source();
         BoundaryCondition surface = problem.condition(Side.SURFACE);
-        boolean temperatureSurface = !steady && !(surface instanceof BoundaryCondition.Neumann);
-        Expression heating = temperatureSurface ? heatingOf(source, timeHorizon) : null;
+        boolean fluxSurface = surface instanceof BoundaryCondition.Neumann;
+        Expression heating = steady ? null : heatingOf(source, timeHorizon);
         boolean dataMove = surface.data().variables().contains("t") && !surface.data().isIndependentOf("t");
-        boolean moving = temperatureSurface && (dataMove || heating != null);
-        Expression[] mustBeConstant = !moving ? new Expression[] {source, surface.data()}
-            : heating == null ? new Expression[] {source} : new Expression[0];
+        boolean moving = !steady && (dataMove || heating != null);
+        // the source was sampled by heatingOf (a source naming t that does not change passes); a steady problem's
+        // data may not name t at all
+        Expression[] mustBeConstant = steady ? new Expression[] {source, surface.data()} : new Expression[0];
         for (Expression e : mustBeConstant) {
             if (e.variables().contains("t") && !e.isIndependentOf("t")) {
                 throw new OracleException(Reason.UNSUPPORTED, "oracle: the " + (sphere ? "sphere's" : "cylinder's")
-                    + " source" + (moving ? "" : " and surface flux") + " must be constant in time in this version"
-                    + (sphere ? " for a flux surface or Bi below 0.05" : "") + " (" + e.source() + " depends on t); a"
-                    + " surface temperature or ambient may vary in time, a source only by the same amount everywhere,"
-                    + " and the initial temperature may be anything");
+                    + " source must be constant in time or change by the same amount everywhere in this version (" + e.source()
+                    + " depends on t); the surface data may vary in time, and the initial temperature may be anything");
             }
         }
         if (moving) {
@@ -112,32 +118,55 @@ public final class RadialSolver implements SpatialSolver {
             }
             g = dataMove ? g.over("t") : Expression.constant(0, "t");
             this.level = g.linear(1, Expression.constant(1, "t"), -g.value(0));
-            // the lag follows r = b' - sigma, sigma the uniform change of the source in K/s
-            this.slope = heating == null ? level.derivative("t") : level.derivative("t").linear(1, heating, -1);
+            if (fluxSurface) {
+                // dq drives the lag; a uniform source's change only lifts the mean
+                this.slope = level.derivative("t");
+                Expression rise = level.linear((n + 1) / (rhoC * radius), heating == null ? Expression.constant(0, "t")
+                    : heating, 1);
+                this.meanRise = new ScheduleIntegral(rise);
+                this.riseMax = CommonLevel.sizes(rise, rise, rise, timeHorizon)[0];
+                this.fluxShape = new double[] {-(n + 1) * radius * radius / ((n + 3) * 2 * k * radius),
+                    1 / (2 * k * radius)};
+                this.lag1 = inverse(fluxShape);
+                this.lag2 = inverse(lag1);
+            } else {
+                // the lag follows r = b' - sigma, sigma the uniform change of the source in K/s
+                this.slope = heating == null ? level.derivative("t") : level.derivative("t").linear(1, heating, -1);
+                this.meanRise = null;
+                this.riseMax = 0;
+                this.fluxShape = null;
+                double h = surface instanceof BoundaryCondition.Robin rob ? rob.heatTransferCoefficient()
+                    : Double.POSITIVE_INFINITY;
+                double lagConstant = k * radius / ((n + 1) * alpha * h);
+                this.lag1 = new double[] {radius * radius / (2 * (n + 1) * alpha) + lagConstant, -1 / (2 * (n + 1) * alpha)};
+                // -alpha Lap P2 = P1 with Lap r^(2j) = 2j (2j + n - 1) r^(2j - 2); P2(R) + (k/h) P2'(R) = 0
+                double c4 = 1 / (8 * (n + 1) * (n + 3) * alpha * alpha);
+                double c2 = -lag1[0] / (2 * (n + 1) * alpha);
+                double atSurface = c2 * radius * radius + c4 * Math.pow(radius, 4);
+                double slopeAtSurface = 2 * c2 * radius + 4 * c4 * Math.pow(radius, 3);
+                this.lag2 = new double[] {-atSurface - k / h * slopeAtSurface, c2, c4};
+            }
             this.curvature = slope.derivative("t");
             Expression third = curvature.derivative("t");
             this.thirdMax = CommonLevel.sizes(curvature, third, third, timeHorizon)[1];
             this.duhamel = new ScheduleIntegral(third);
-            double h = surface instanceof BoundaryCondition.Robin rob ? rob.heatTransferCoefficient()
-                : Double.POSITIVE_INFINITY;
-            this.lagConstant = k * radius / ((n + 1) * alpha * h);
-            // -alpha Lap P2 = P1 with Lap r^(2j) = 2j (2j + n - 1) r^(2j - 2); P2(R) + (k/h) P2'(R) = 0
-            double c4 = 1 / (8 * (n + 1) * (n + 3) * alpha * alpha);
-            double c2 = -(radius * radius / (2 * (n + 1) * alpha) + lagConstant) / (2 * (n + 1) * alpha);
-            double atSurface = c2 * radius * radius + c4 * Math.pow(radius, 4);
-            double slopeAtSurface = 2 * c2 * radius + 4 * c4 * Math.pow(radius, 3);
-            lag2[0] = -atSurface - k / h * slopeAtSurface;
-            lag2[1] = c2;
-            lag2[2] = c4;
         } else {
             this.level = null;
             this.slope = null;
             this.curvature = null;
             this.thirdMax = 0;
             this.duhamel = null;
-            this.lagConstant = 0;
+            this.lag1 = new double[] {0};
+            this.lag2 = new double[] {0};
+            this.fluxShape = null;
+            this.meanRise = null;
+            this.riseMax = 0;
         }
         double levelMax = moving ? CommonLevel.sizes(level, slope, curvature, timeHorizon)[0] : 0;
+        if (fluxSurface && moving) {
+            // a flux change dq moves the profile by up to |dq| R/k and the mean by (n + 1) |dq| T/(rho c R)
+            levelMax *= radius / k + (n + 1) * timeHorizon / (rhoC * radius);
+        }
         if (heating != null) {
             // a uniform source that changes in time moves the temperature by up to max |sigma| T
             levelMax += CommonLevel.sizes(heating, heating, heating, timeHorizon)[0] * timeHorizon;
@@ -267,15 +296,66 @@ public final class RadialSolver implements SpatialSolver {
         return changes ? sigma : null;
     }
 
-    /** P1(r), with -alpha (r^n P1')' / r^n = 1 under the homogeneous surface condition. */
+    /** P1(r): -alpha (r^n P1')' / r^n = 1 (or Psi1 = A^-1 psi for a flux surface) under the homogeneous condition. */
     private double lag(double r) {
-        return (radius * radius - r * r) / (2 * (n + 1) * alpha) + lagConstant;
+        return poly(lag1, r);
     }
 
-    /** P2(r), with -alpha (r^n P2')' / r^n = P1 under the homogeneous surface condition. */
+    /** P2(r) = A^-1 P1 (or Psi2 = A^-1 Psi1), under the homogeneous surface condition. */
     private double lag2(double r) {
+        return poly(lag2, r);
+    }
+
+    /** sum_j c_j r^(2j). */
+    private static double poly(double[] c, double r) {
         double r2 = r * r;
-        return lag2[0] + lag2[1] * r2 + lag2[2] * r2 * r2;
+        double v = 0;
+        for (int j = c.length - 1; j >= 0; j--) {
+            v = v * r2 + c[j];
+        }
+        return v;
+    }
+
+    /** d/dr sum_j c_j r^(2j). */
+    private static double polySlope(double[] c, double r) {
+        double v = 0;
+        for (int j = c.length - 1; j >= 1; j--) {
+            v += 2 * j * c[j] * Math.pow(r, 2 * j - 1);
+        }
+        return v;
+    }
+
+    /** The mean of sum_j c_j r^(2j) over a < r < b with weight r^n. */
+    private double polyMean(double[] c, double a, double b) {
+        double v = c[0];
+        for (int j = 1; j < c.length; j++) {
+            v += c[j] * powerMean(j, a, b);
+        }
+        return v;
+    }
+
+    /** sup over [0, R] of |sum_j c_j r^(2j)|, bounded by sum_j |c_j| R^(2j). */
+    private double polySup(double[] c) {
+        double v = 0;
+        for (int j = 0; j < c.length; j++) {
+            v += Math.abs(c[j]) * Math.pow(radius, 2 * j);
+        }
+        return v;
+    }
+
+    /**
+     * g = A^-1 f for f of mean zero (weight r^n) under the insulated surface: -alpha Lap g = f with
+     * Lap r^(2j+2) = (2j + 2)(2j + n + 1) r^(2j), g'(R) = 0 following from the mean, g of mean zero.
+     */
+    private double[] inverse(double[] f) {
+        double[] g = new double[f.length + 1];
+        for (int j = 0; j < f.length; j++) {
+            g[j + 1] = -f[j] / (alpha * (2 * j + 2) * (2 * j + n + 1));
+        }
+        for (int j = 1; j < g.length; j++) {
+            g[0] -= g[j] * (n + 1) * Math.pow(radius, 2 * j) / (n + 1 + 2 * j);
+        }
+        return g;
     }
 
     /** The mean of r^(2j) over a < r < b with weight r^n. */
@@ -284,9 +364,23 @@ public final class RadialSolver implements SpatialSolver {
         return (Math.pow(b, n + 1 + 2 * j) - Math.pow(a, n + 1 + 2 * j)) / (n + 1 + 2 * j) / area;
     }
 
-    /** |1_i|, the projection of 1 on mode i, or its bound past the computed modes. */
+    /**
+     * The projection on mode i of what drives the lag: 1 for a temperature surface; psi for a flux
+     * surface, psi_i = R^n X_i(R) / (k beta_i^2 ||X_i||^2) by Green's identity (Lap psi is constant and
+     * projects to 0 on i >= 1; the zero mode gets nothing, psi having mean 0).
+     */
+    private double projection(int i, double[] b, double[] nn) {
+        if (fluxShape == null) {
+            return modeIntegral(b[i], 0, radius) / nn[i];
+        }
+        if (b[i] == 0) {
+            return 0;
+        }
+        return Math.pow(radius, n) * mode(b[i] * radius) / (k * b[i] * b[i] * nn[i]);
+    }
+
     private double one(int i) {
-        return Math.abs(modeIntegral(beta[i], 0, radius) / norm[i]);
+        return Math.abs(projection(i, beta, norm));
     }
 
     /**
@@ -299,6 +393,16 @@ public final class RadialSolver implements SpatialSolver {
     private double beyondComputed(int from, int g) {
         double c = Math.PI / radius;
         double a3 = alpha * alpha * alpha;
+        if (fluxShape != null) {
+            // psi_i: cylinder 2 / (k beta^2 R |J0(z)|) <= 2 sqrt(pi) R / (k z^1.5) (J0^2 >= 1/(pi z) at J1 = 0);
+            // sphere R^2 |sin z / z| / (k beta^2 0.42 R / beta^2) <= R / (0.42 k z); z >= i pi
+            double factor = sphere ? radius / (0.42 * k * Math.PI) : 2 * Math.sqrt(Math.PI) * radius
+                / (k * Math.pow(Math.PI, 1.5));
+            double power = sphere ? 1 : 1.5;
+            factor *= Math.pow(2 * c, g) / (a3 * Math.pow(c, 6));
+            double q = 6 + power - g;
+            return factor * Math.pow(from - 1, 1 - q) / (q - 1);
+        }
         if (!sphere) {
             // 2 pi / sqrt(i pi) (2 i c)^g / (alpha^3 (i c)^6): sum i^(g - 6.5) <= (from - 1)^(g - 5.5) / (5.5 - g)
             double factor = 2 * Math.PI / Math.sqrt(Math.PI) * Math.pow(2 * c, g) / (a3 * Math.pow(c, 6));
@@ -309,15 +413,14 @@ public final class RadialSolver implements SpatialSolver {
     }
 
     /**
-     * True when a sphere problem goes to this solver: a flux surface with data constant in time,
+     * True when a sphere problem goes to this solver: a flux surface,
      * convection below Bi = 0.05 with a source constant in time (the ambient may move), or below
      * Bi = 0.01 whatever the source does (the slab mapping takes the rest).
      */
     public static boolean prefersSphere(Problem p) {
         BoundaryCondition surface = p.condition(Side.SURFACE);
-        boolean constant = p.source().isIndependentOf("t") && surface.data().isIndependentOf("t");
         if (surface instanceof BoundaryCondition.Neumann) {
-            return constant;
+            return true; // the mapping refuses a flux; this solver takes one that varies in time too
         }
         if (surface instanceof BoundaryCondition.Robin r) {
             // a moving ambient is a level this solver takes; a source that varies in time stays on the mapping,
@@ -463,10 +566,13 @@ public final class RadialSolver implements SpatialSolver {
             double initialCurvature = curvature.value(0);
             for (int i = 0; i < size; i++) {
                 double l = alpha * b[i] * b[i];
-                double one = modeIntegral(b[i], 0, radius) / nn[i];
+                if (l == 0) {
+                    continue; // the zero mode: P1 and P2 of a flux surface have mean 0
+                }
+                double one = projection(i, b, nn);
                 result[0][i] += initialSlope * one / l - initialCurvature * one / (l * l);
             }
-            normF += (Math.abs(initialSlope) * lag(0) + Math.abs(initialCurvature) * lag2(0))
+            normF += (Math.abs(initialSlope) * polySup(lag1) + Math.abs(initialCurvature) * polySup(lag2))
                 * Math.sqrt(Math.pow(radius, n + 1) / (n + 1));
         }
         beta = b;
@@ -500,6 +606,8 @@ public final class RadialSolver implements SpatialSolver {
         private final double levelNow;
         private final double slopeNow;
         private final double curvatureNow;
+        private final double meanNow;
+        private final double meanBound;
 
         RadialSlice(double t) {
             this.t = t;
@@ -507,6 +615,15 @@ public final class RadialSolver implements SpatialSolver {
             this.levelNow = moving ? level.value(t) : 0;
             this.slopeNow = moving ? slope.value(t) : 0;
             this.curvatureNow = moving ? curvature.value(t) : 0;
+            if (moving && meanRise != null) {
+                ScheduleIntegral.At rise = meanRise.at(t);
+                this.meanNow = rise.value(0);
+                // the panels resolve the rate to 1e-14 (see ScheduleIntegral): 1e-13 of what it sums, with margin
+                this.meanBound = 1e-13 * (Math.abs(meanNow) + t * riseMax);
+            } else {
+                this.meanNow = 0;
+                this.meanBound = 0;
+            }
             if (t == 0 || t == Double.POSITIVE_INFINITY) {
                 m = 0;
                 weighted = new double[0];
@@ -562,7 +679,7 @@ public final class RadialSolver implements SpatialSolver {
                     sg[sz] = beyondComputed(sz, 1);
                     for (int i = sz - 1; i >= 0; i--) {
                         double l = alpha * beta[i] * beta[i];
-                        double w = one(i) / (l * l * l);
+                        double w = l == 0 ? 0 : one(i) / (l * l * l);
                         sv[i] = sv[i + 1] + w;
                         sg[i] = sg[i + 1] + w * beta[i];
                     }
@@ -612,22 +729,27 @@ public final class RadialSolver implements SpatialSolver {
                 double sumGradient = 0;
                 for (int i = 0; i < particular; i++) {
                     double l = alpha * beta[i] * beta[i];
-                    double one = modeIntegral(beta[i], 0, radius) / norm[i];
+                    if (l == 0) {
+                        continue;
+                    }
+                    double one = projection(i, beta, norm);
                     weighted[i] -= one / (l * l) * integrals.value(l);
                     sumValue += Math.abs(one) / (l * l * l);
                     sumGradient += Math.abs(one) / (l * l * l) * beta[i];
                 }
-                double relative = integrals.relativeError(alpha * beta[0] * beta[0], thirdMax);
+                double slowest = alpha * beta[flux ? 1 : 0] * beta[flux ? 1 : 0];
+                double relative = integrals.relativeError(slowest, thirdMax);
                 quadrature = relative * thirdMax * sumValue;
                 quadratureGradient = relative * thirdMax * sumGradient;
             }
-            bound = steadyError + tail + coefError * decaySum + pTail + quadrature;
+            bound = steadyError + tail + coefError * decaySum + pTail + quadrature + meanBound;
             gradientBound = gradientError + gTail + coefError * decaySum * maxBeta + pgTail + quadratureGradient;
         }
 
-        /** b(t) - b'(t) P1(r) + b''(t) P2(r): the moving level and its quasi-static lag. */
+        /** b(t) - r(t) P1 + r'(t) P2, or for a flux surface dq psi + m - dq' Psi1 + dq'' Psi2. */
         private double levelPart(double r) {
-            return levelNow - slopeNow * lag(r) + curvatureNow * lag2(r);
+            double shape = fluxShape == null ? 1 : poly(fluxShape, r);
+            return levelNow * shape + meanNow - slopeNow * lag(r) + curvatureNow * lag2(r);
         }
 
         @Override
@@ -652,8 +774,8 @@ public final class RadialSolver implements SpatialSolver {
                 return new Evaluation(g, 4 * EPS * Math.max(Math.abs(g), 1e-3 * scale));
             }
             double value = (steady ? 0 : drift * t) + steadyValue(r) + levelPart(r);
-            double magnitude = Math.abs(value) + Math.abs(levelNow) + Math.abs(slopeNow * lag(r))
-                + Math.abs(curvatureNow * lag2(r));
+            double magnitude = Math.abs(value) + Math.abs(levelNow) * (fluxShape == null ? 1 : polySup(fluxShape))
+                + Math.abs(meanNow) + Math.abs(slopeNow * lag(r)) + Math.abs(curvatureNow * lag2(r));
             for (int i = 0; i < m; i++) {
                 double term = weighted[i] * mode(b[i] * r);
                 value += term;
@@ -704,12 +826,13 @@ public final class RadialSolver implements SpatialSolver {
                 }
                 sums[pass] = sum;
             }
-            double lagMean = (radius * radius - powerMean(1, inner, outer)) / (2 * (n + 1) * alpha) + lagConstant;
-            double lag2Mean = lag2[0] + lag2[1] * powerMean(1, inner, outer) + lag2[2] * powerMean(2, inner, outer);
-            double value = (steady ? 0 : drift * t) + sums[1] / area + levelNow - slopeNow * lagMean
-                + curvatureNow * lag2Mean;
-            double magnitude = Math.abs(value) + Math.abs(levelNow) + Math.abs(slopeNow * lagMean)
-                + Math.abs(curvatureNow * lag2Mean);
+            double lagMean = polyMean(lag1, inner, outer);
+            double lag2Mean = polyMean(lag2, inner, outer);
+            double shapeMean = fluxShape == null ? 1 : polyMean(fluxShape, inner, outer);
+            double value = (steady ? 0 : drift * t) + sums[1] / area + levelNow * shapeMean + meanNow
+                - slopeNow * lagMean + curvatureNow * lag2Mean;
+            double magnitude = Math.abs(value) + Math.abs(levelNow * shapeMean) + Math.abs(meanNow)
+                + Math.abs(slopeNow * lagMean) + Math.abs(curvatureNow * lag2Mean);
             for (int i = 0; i < m; i++) {
                 double mean = modeIntegral(b[i], inner, outer) / area;
                 double term = weighted[i] * mean;
@@ -733,8 +856,8 @@ public final class RadialSolver implements SpatialSolver {
                     + " temperature; ask for t > 0");
             }
             double s = Chebyshev.reference(r, 0, radius);
-            double g = -Chebyshev.value(j, s) / k + slopeNow * r / ((n + 1) * alpha)
-                + curvatureNow * (2 * lag2[1] * r + 4 * lag2[2] * r * r * r);
+            double g = -Chebyshev.value(j, s) / k - slopeNow * polySlope(lag1, r) + curvatureNow * polySlope(lag2, r)
+                + (fluxShape == null ? 0 : levelNow * polySlope(fluxShape, r));
             double magnitude = Math.abs(g);
             for (int i = 0; i < m; i++) {
                 double term = weighted[i] * b[i] * modeSlope(b[i] * r);

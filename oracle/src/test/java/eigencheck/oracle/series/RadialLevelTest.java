@@ -162,6 +162,118 @@ class RadialLevelTest {
         assertWithin(300 * (1 - Math.exp(-1)), o.temperature(radius, 40), limit, "on the surface u is the data");
     }
 
+    /**
+     * The radial heat polynomial u = 5 + 3 (t + r^2/(2 (n+1) alpha)) + 40 (t^2 + t r^2/((n+1) alpha)
+     * + r^4/(4 (n+1)(n+3) alpha^2)) solves u_t = alpha Lap u with no source (direct differentiation, common
+     * practice); its surface flux k u_r(R) grows linearly in time, so the flux surface's lag Psi1 is exercised
+     * on the cylinder and the sphere.
+     */
+    @Test
+    void heatPolynomialWithAGrowingSurfaceFlux() {
+        double k = 2.5;
+        double alpha = 0.4;
+        double radius = 0.5;
+        for (int n = 1; n <= 2; n++) {
+            double a = 1 / (2.0 * (n + 1) * alpha);
+            double b = 1 / ((n + 1) * alpha);
+            double c = 1 / (4.0 * (n + 1) * (n + 3) * alpha * alpha);
+            Expression u = Expression.parse("5 + 3*(t + " + a + "*r^2) + 40*(t^2 + " + b + "*t*r^2 + " + c + "*r^4)",
+                "r", "t");
+            Domain domain = n == 1 ? new Cylinder(radius) : new Sphere(radius);
+            Problem p = eigencheck.oracle.problem.Manufactured.radial(u, domain, new Material(k, k / alpha),
+                eigencheck.oracle.problem.Manufactured.Face.neumann());
+            assertClose(0, p.source().value(0.2, 0.7), 1e-10, "no source");
+            Oracle o = Oracle.prepare(p, 1.5, 1e-10);
+            for (double t : new double[] {0.01, 0.5, 1.5}) {
+                for (double r : new double[] {0, 0.2, 0.45, radius}) {
+                    assertWithin(u.value(r, t), o.temperature(r, t), 1e-10 * o.temperatureScale(), domain + " u at r = "
+                        + r + ", t = " + t);
+                    assertWithin(u.derivative("r").value(r, t), o.gradient(new double[] {r}, t)[0],
+                        1e-10 * o.temperatureScale() / radius, domain + " du/dr at r = " + r + ", t = " + t);
+                }
+            }
+        }
+    }
+
+    /**
+     * A rod of radius 0.04 m, initially 0, heated through its surface by q(t) = 2000 + 3000 (1 - exp(-t/30))
+     * W/m^2. By Duhamel's theorem u = q(0) U(r, t) + int_0^t q'(t - s) U(r, s) ds, U the response to a unit
+     * flux switched on at t = 0: U = 2 alpha t/(k R) + (R/k)(r^2/(2 R^2) - 1/4)
+     * - (2 R/k) sum_n exp(-z_n^2 alpha t/R^2) J0(z_n r/R)/(z_n^2 J0(z_n)), z_n the zeros of J1 (Carslaw and
+     * Jaeger, Conduction of Heat in Solids, 2nd ed., 1959, section 7.8; recalled from memory; its value at
+     * t = 0 is checked to vanish), summed to 400 terms with Commons Math's BesselJ.
+     */
+    @Test
+    void rodHeatedByAFluxThatChangesInTimeMatchesDuhamelsTheorem() {
+        double radius = 0.04;
+        double alpha = 1e-5;
+        double k = 15;
+        Problem p = body(new Cylinder(radius), new Material(k, k / alpha), "0",
+            new BoundaryCondition.Neumann(Expression.parse("2000 + 3000*(1 - exp(-t/30))", "t")));
+        Oracle o = Oracle.prepare(p, 120, 1e-10);
+        FluxRod rod = new FluxRod(radius, alpha, k);
+        for (double r : new double[] {0, 0.015, 0.03}) {
+            // at t = 0 the series converges like 1/N (400 terms: about 1e-7 of R/k = 2.7e-3): the formula's sign
+            // and constant, not its digits, are what this checks
+            assertClose(0, rod.value(r, 0)[0], 1e-4 * radius / k, "U(r, 0)");
+        }
+        double limit = 1e-10 * o.temperatureScale();
+        for (double t : new double[] {4, 30, 120}) {
+            for (double r : new double[] {0, 0.012, 0.025, 0.032}) {
+                double[] step = rod.value(r, t);
+                double exact = 2000 * step[0];
+                double slope = 2000 * step[1];
+                for (int i = 0; i < 200; i++) {
+                    GaussIntegrator rule = new GaussIntegratorFactory().legendre(20, t * i / 200, t * (i + 1) / 200);
+                    for (int q = 0; q < rule.getNumberOfPoints(); q++) {
+                        double s = rule.getPoint(q);
+                        double[] u = rod.value(r, s);
+                        double rate = 3000 / 30.0 * Math.exp(-(t - s) / 30);
+                        exact += rule.getWeight(q) * rate * u[0];
+                        slope += rule.getWeight(q) * rate * u[1];
+                    }
+                }
+                assertWithin(exact, o.temperature(r, t), limit, "u at r = " + r + ", t = " + t);
+                assertWithin(slope, o.gradient(new double[] {r}, t)[0], limit / radius, "du/dr at r = " + r);
+            }
+        }
+    }
+
+    /** The rod's response to a unit surface flux switched on at t = 0, and its radial derivative. */
+    private static final class FluxRod {
+        private final double radius;
+        private final double alpha;
+        private final double k;
+        private final double[] z = new double[400];
+
+        FluxRod(double radius, double alpha, double k) {
+            this.radius = radius;
+            this.alpha = alpha;
+            this.k = k;
+            BrentSolver solver = new BrentSolver(1e-15, 1e-15);
+            for (int n = 0; n < z.length; n++) {
+                double guess = (n + 1.25) * Math.PI;
+                z[n] = solver.solve(200, x -> BesselJ.value(1, x), guess - 0.5, guess + 0.5);
+            }
+        }
+
+        /** {U, dU/dr}; 0 before the surface is felt at these points (at least 0.2 R inside) except at t = 0 exactly. */
+        double[] value(double r, double s) {
+            if (s > 0 && alpha * s / (radius * radius) < 2.5e-4) {
+                return new double[] {0, 0};
+            }
+            double u = 2 * alpha * s / (k * radius) + radius / k * (r * r / (2 * radius * radius) - 0.25);
+            double du = r / (k * radius);
+            for (double zn : z) {
+                double c = 2 * radius / k * Math.exp(-zn * zn * alpha * s / (radius * radius)) / (zn * zn
+                    * BesselJ.value(0, zn));
+                u -= c * BesselJ.value(0, zn * r / radius);
+                du += c * zn / radius * BesselJ.value(1, zn * r / radius);
+            }
+            return new double[] {u, du};
+        }
+    }
+
     /** The rod cooled from 1 with its surface at 0, and its Duhamel integral. */
     private static final class Rod {
         private final double radius;
