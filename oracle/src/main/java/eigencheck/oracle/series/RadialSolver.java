@@ -11,8 +11,8 @@ import eigencheck.oracle.problem.Side;
 import java.util.SplittableRandom;
 
 /**
- * The solid cylinder (radially symmetric, infinitely long or with insulated ends) and the solid sphere
- * with data constant in time, n = 1 or 2: u = A t + P(r) + V.
+ * The solid cylinder (radially symmetric, infinitely long or with insulated ends) and the solid sphere,
+ * n = 1 or 2: u = A t + P(r) + V for the data at t = 0, plus the moving part below.
  * <ul>
  * <li>P solves \(-k (r^n P')'/r^n = Q - \rho c A\) with the surface condition; A = 0 except with a flux
  * surface, where \(A = ((n+1) q/R + ((n+1)/R^{n+1})\int_0^R Q r^n\,dr)/(\rho c)\) is the mean heating
@@ -31,7 +31,15 @@ import java.util.SplittableRandom;
  * Truncation: \(|c_n| \le \|g - P\|/\|J_0(\beta_n r)\|\) (Cauchy-Schwarz), \(|J_0|, |J_1| \le 1\),
  * \(\beta_n \ge (n-1)\pi/R\) and, beyond the computed modes, \(\|J_0(\beta_n r)\|^2 \ge R^2/(2\pi z_n)\)
  * (half the large-z value of \(R^2(J_0^2+J_1^2)/2\); an asymptotic estimate with a factor 2 of margin,
- * checked against the computed norms in CylinderTest). Source and surface data must be constant in t.
+ * checked against the computed norms in CylinderTest).
+ * <p>Data that change in time: a surface temperature or ambient g(0) + b(t), and a source
+ * Q_0(r) + rho c sigma(t) that changes by the same amount everywhere, add b - r P1 + r' P2 with the
+ * rate r = b' - sigma, P1 = A^-1 1 and P2 = A^-1 P1 in closed form (polynomials in r^2); a flux
+ * q(0) + dq(t) adds dq psi + m - dq' Psi1 + dq'' Psi2 (psi the mean-free profile of a unit flux, m the
+ * mean rise). What is left solves v_t + A v = -f''' P2 (f the rate or dq) with homogeneous data: its modes
+ * gain -(p_i / lambda_i^2) int_0^t exp(-lambda_i (t - s)) f'''(s) ds ({@link ScheduleIntegral}), p_i the
+ * projection of 1 or psi, and their tail is bounded by sum |p_i| beta_i^g / lambda_i^3 (exact over the
+ * computed modes, asymptotic bounds beyond).
  */
 public final class RadialSolver implements SpatialSolver {
     private static final double EPS = Math.ulp(1.0);
