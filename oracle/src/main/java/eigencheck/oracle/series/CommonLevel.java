@@ -156,7 +156,10 @@ final class CommonLevel {
         return slope.value(t);
     }
 
-    /** The signed projection (int X_j) / ||X_j||^2 of 1 on mode j of axis i (exactly 0 past the constant on an inactive axis). */
+    /**
+     * The signed projection (int X_j) / ||X_j||^2 of 1 on mode j of axis i (exactly 0 past the constant
+     * on an inactive axis).
+     */
     double one(int i, int j) {
         if (!active[i]) {
             return j == 0 ? 1 : 0;

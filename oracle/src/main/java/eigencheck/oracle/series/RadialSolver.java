@@ -115,7 +115,8 @@ public final class RadialSolver implements SpatialSolver {
         for (Expression e : mustBeConstant) {
             if (e.variables().contains("t") && !e.isIndependentOf("t")) {
                 throw new OracleException(Reason.UNSUPPORTED, "oracle: the " + (sphere ? "sphere's" : "cylinder's")
-                    + " source must be constant in time or change by the same amount everywhere in this version (" + e.source()
+                    + " source must be constant in time or change by the same amount everywhere in this version ("
+                    + e.source()
                     + " depends on t); the surface data may vary in time, and the initial temperature may be anything");
             }
         }
@@ -640,118 +641,121 @@ public final class RadialSolver implements SpatialSolver {
                 gradientBound = gradientError;
                 return;
             }
-            double budget = tolerance * scale;
-            double a = alpha * t * Math.PI * Math.PI / (radius * radius);
-            if (a * CAP * CAP < 1) {
-                throw new OracleException(Reason.TOO_MANY_MODES, "oracle: at t = " + t + " s the cylinder's series needs"
-                    + " more than " + CAP + " modes (alpha t/R^2 = " + alpha * t / (radius * radius) + ")");
-            }
-            int size = 16;
-            int mm;
-            double tail;
-            double gTail;
-            while (true) {
-                ensure(size);
-                double c = tailCoefficient;
-                // mode i (0-based) has beta_i >= i pi/R and |c_i| <= c (i + 1), and |d/dr| adds beta_i <= (i + 1) pi/R
-                mm = 1;
+            // the mode tables grow under the solver's lock; reading them under it too keeps a slice's view whole
+            synchronized (RadialSolver.this) {
+                double budget = tolerance * scale;
+                double a = alpha * t * Math.PI * Math.PI / (radius * radius);
+                if (a * CAP * CAP < 1) {
+                    throw new OracleException(Reason.TOO_MANY_MODES, "oracle: at t = " + t + " s the cylinder's series needs"
+                        + " more than " + CAP + " modes (alpha t/R^2 = " + alpha * t / (radius * radius) + ")");
+                }
+                int size = 16;
+                int mm;
+                double tail;
+                double gTail;
                 while (true) {
-                    tail = c * TensorSolver.gaussTail(a, mm, 1);
-                    gTail = c * Math.PI / radius * TensorSolver.gaussTail(a, mm, 2);
-                    if ((tail <= budget / 4 && gTail <= budget / (4 * radius)) || mm >= coef.length) {
-                        break;
-                    }
-                    mm++;
-                }
-                if (tail <= budget / 4 && gTail <= budget / (4 * radius)) {
-                    break;
-                }
-                if (coef.length >= CAP) {
-                    throw new OracleException(Reason.TOO_MANY_MODES, "oracle: at t = " + t + " s the cylinder's series"
-                        + " needs more than " + CAP + " modes");
-                }
-                size = coef.length * 2;
-            }
-            // the moving level's particular part: modes until its tails meet the budgets (values at least)
-            int particular = 0;
-            double pTail = 0;
-            double pgTail = 0;
-            if (moving && thirdMax > 0) {
-                int want = coef.length;
-                while (true) {
-                    ensure(want);
-                    int sz = coef.length;
-                    double[] sv = new double[sz + 1];
-                    double[] sg = new double[sz + 1];
-                    sv[sz] = beyondComputed(sz, 0);
-                    sg[sz] = beyondComputed(sz, 1);
-                    for (int i = sz - 1; i >= 0; i--) {
-                        double l = alpha * beta[i] * beta[i];
-                        double w = l == 0 ? 0 : one(i) / (l * l * l);
-                        sv[i] = sv[i + 1] + w;
-                        sg[i] = sg[i + 1] + w * beta[i];
-                    }
-                    int both = -1;
-                    int values = -1;
-                    for (int i = 1; i <= sz; i++) {
-                        if (values < 0 && thirdMax * sv[i] <= budget / 8) {
-                            values = i;
-                        }
-                        if (thirdMax * sv[i] <= budget / 8 && thirdMax * sg[i] <= budget / (8 * radius)) {
-                            both = i;
+                    ensure(size);
+                    double c = tailCoefficient;
+                    // mode i (0-based) has beta_i >= i pi/R and |c_i| <= c (i + 1), and |d/dr| adds beta_i <= (i + 1) pi/R
+                    mm = 1;
+                    while (true) {
+                        tail = c * TensorSolver.gaussTail(a, mm, 1);
+                        gTail = c * Math.PI / radius * TensorSolver.gaussTail(a, mm, 2);
+                        if ((tail <= budget / 4 && gTail <= budget / (4 * radius)) || mm >= coef.length) {
                             break;
                         }
+                        mm++;
                     }
-                    if (both > 0 || (sz >= CAP && values > 0)) {
-                        particular = both > 0 ? both : values;
-                        pTail = thirdMax * sv[particular];
-                        pgTail = thirdMax * sg[particular];
+                    if (tail <= budget / 4 && gTail <= budget / (4 * radius)) {
                         break;
                     }
-                    if (sz >= CAP) {
-                        throw new OracleException(Reason.TOO_MANY_MODES, "oracle: at t = " + t + " s the response to"
-                            + " the moving surface temperature needs more than " + CAP + " modes; loosen the tolerance");
+                    if (coef.length >= CAP) {
+                        throw new OracleException(Reason.TOO_MANY_MODES, "oracle: at t = " + t + " s the cylinder's series"
+                            + " needs more than " + CAP + " modes");
                     }
-                    want = 2 * sz;
+                    size = coef.length * 2;
                 }
-            }
-            m = Math.max(mm, particular);
-            weighted = new double[m];
-            b = new double[m];
-            double decaySum = 0;
-            double maxBeta = 0;
-            for (int i = 0; i < m; i++) {
-                b[i] = beta[i];
-                maxBeta = Math.max(maxBeta, beta[i]);
-                if (i < mm) {
-                    double e = Math.exp(-alpha * beta[i] * beta[i] * t);
-                    weighted[i] = coef[i] * e;
-                    decaySum += e;
-                }
-            }
-            double quadrature = 0;
-            double quadratureGradient = 0;
-            if (particular > 0) {
-                ScheduleIntegral.At integrals = duhamel.at(t);
-                double sumValue = 0;
-                double sumGradient = 0;
-                for (int i = 0; i < particular; i++) {
-                    double l = alpha * beta[i] * beta[i];
-                    if (l == 0) {
-                        continue;
+                // the moving level's particular part: modes until its tails meet the budgets (values at least)
+                int particular = 0;
+                double pTail = 0;
+                double pgTail = 0;
+                if (moving && thirdMax > 0) {
+                    int want = coef.length;
+                    while (true) {
+                        ensure(want);
+                        int sz = coef.length;
+                        double[] sv = new double[sz + 1];
+                        double[] sg = new double[sz + 1];
+                        sv[sz] = beyondComputed(sz, 0);
+                        sg[sz] = beyondComputed(sz, 1);
+                        for (int i = sz - 1; i >= 0; i--) {
+                            double l = alpha * beta[i] * beta[i];
+                            double w = l == 0 ? 0 : one(i) / (l * l * l);
+                            sv[i] = sv[i + 1] + w;
+                            sg[i] = sg[i + 1] + w * beta[i];
+                        }
+                        int both = -1;
+                        int values = -1;
+                        for (int i = 1; i <= sz; i++) {
+                            if (values < 0 && thirdMax * sv[i] <= budget / 8) {
+                                values = i;
+                            }
+                            if (thirdMax * sv[i] <= budget / 8 && thirdMax * sg[i] <= budget / (8 * radius)) {
+                                both = i;
+                                break;
+                            }
+                        }
+                        if (both > 0 || (sz >= CAP && values > 0)) {
+                            particular = both > 0 ? both : values;
+                            pTail = thirdMax * sv[particular];
+                            pgTail = thirdMax * sg[particular];
+                            break;
+                        }
+                        if (sz >= CAP) {
+                            throw new OracleException(Reason.TOO_MANY_MODES, "oracle: at t = " + t + " s the response to"
+                                + " the moving surface data needs more than " + CAP + " modes; loosen the tolerance");
+                        }
+                        want = 2 * sz;
                     }
-                    double one = projection(i, beta, norm);
-                    weighted[i] -= one / (l * l) * integrals.value(l);
-                    sumValue += Math.abs(one) / (l * l * l);
-                    sumGradient += Math.abs(one) / (l * l * l) * beta[i];
                 }
-                double slowest = alpha * beta[flux ? 1 : 0] * beta[flux ? 1 : 0];
-                double relative = integrals.relativeError(slowest, thirdMax);
-                quadrature = relative * thirdMax * sumValue;
-                quadratureGradient = relative * thirdMax * sumGradient;
+                m = Math.max(mm, particular);
+                weighted = new double[m];
+                b = new double[m];
+                double decaySum = 0;
+                double maxBeta = 0;
+                for (int i = 0; i < m; i++) {
+                    b[i] = beta[i];
+                    maxBeta = Math.max(maxBeta, beta[i]);
+                    if (i < mm) {
+                        double e = Math.exp(-alpha * beta[i] * beta[i] * t);
+                        weighted[i] = coef[i] * e;
+                        decaySum += e;
+                    }
+                }
+                double quadrature = 0;
+                double quadratureGradient = 0;
+                if (particular > 0) {
+                    ScheduleIntegral.At integrals = duhamel.at(t);
+                    double sumValue = 0;
+                    double sumGradient = 0;
+                    for (int i = 0; i < particular; i++) {
+                        double l = alpha * beta[i] * beta[i];
+                        if (l == 0) {
+                            continue;
+                        }
+                        double one = projection(i, beta, norm);
+                        weighted[i] -= one / (l * l) * integrals.value(l);
+                        sumValue += Math.abs(one) / (l * l * l);
+                        sumGradient += Math.abs(one) / (l * l * l) * beta[i];
+                    }
+                    double slowest = alpha * beta[flux ? 1 : 0] * beta[flux ? 1 : 0];
+                    double relative = integrals.relativeError(slowest, thirdMax);
+                    quadrature = relative * thirdMax * sumValue;
+                    quadratureGradient = relative * thirdMax * sumGradient;
+                }
+                bound = steadyError + tail + coefError * decaySum + pTail + quadrature + meanBound;
+                gradientBound = gradientError + gTail + coefError * decaySum * maxBeta + pgTail + quadratureGradient;
             }
-            bound = steadyError + tail + coefError * decaySum + pTail + quadrature + meanBound;
-            gradientBound = gradientError + gTail + coefError * decaySum * maxBeta + pgTail + quadratureGradient;
         }
 
         /** b(t) - r(t) P1 + r'(t) P2, or for a flux surface dq psi + m - dq' Psi1 + dq'' Psi2. */
