@@ -198,16 +198,51 @@ final class CommonLevel {
      * mode's gradient is at most sum_i mu_i <= sqrt(A lambda / alpha). The modes outside m but inside
      * the explicit region [0, C)^A are summed one by one, those beyond it bounded by {@link #tail}.
      */
-    double[] truncation(int[] m) {
-        return truncation(m, explicitCutoff(false));
+    double[] truncation(int[] m, double t) {
+        return truncation(m, explicitCutoff(false), t);
     }
 
-    /** As {@link #truncation(int[])}, with the explicit region's edge c (c^A terms). */
-    double[] truncation(int[] m, int c) {
+    /**
+     * As {@link #truncation(int[], double)}, with the explicit region's edge c (c^A terms). A mode outside
+     * m has lambda >= lambda_m = alpha min_i mu_(i, m_i)^2, and then
+     * |I(t)| <= int_0^t exp(-lambda (t - s)) |b''(s)| ds <= 2 M / lambda with
+     * M = max_s |b''(s)| exp(-lambda_m (t - s) / 2): a schedule whose b'' has died down by t costs fewer
+     * modes than its largest b'' would.
+     */
+    double[] truncation(int[] m, int c, double t) {
         double[] explicit = explicitTail(m, c);
         double[] beyond = beyond(c);
-        return new double[] {curvatureMax * (explicit[0] + beyond[0]),
-            curvatureMax * Math.sqrt(activeCount / alpha) * (explicit[1] + beyond[1])};
+        double size = localCurvature(t, edge(m));
+        return new double[] {size * (explicit[0] + beyond[0]),
+            size * Math.sqrt(activeCount / alpha) * (explicit[1] + beyond[1])};
+    }
+
+    /** alpha min over the active axes of mu_(i, m_i)^2: no mode outside box m decays more slowly. */
+    private double edge(int[] m) {
+        double lowest = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < axes.length; i++) {
+            if (active[i]) {
+                double mu = axes[i].mu[Math.min(m[i], axes[i].mu.length - 1)];
+                lowest = Math.min(lowest, alpha * mu * mu);
+            }
+        }
+        return lowest;
+    }
+
+    /**
+     * min(max |b''|, 2 M), M = max over 2049 samples s of [0, t] of |b''(s)| exp(-lambda (t - s) / 2)
+     * with the same 5 % margin as the sizes.
+     */
+    private double localCurvature(double t, double lambda) {
+        if (!(t > 0) || !(lambda > 0)) {
+            return curvatureMax;
+        }
+        double m = 0;
+        for (int i = 0; i < SAMPLES; i++) {
+            double s = t * i / (SAMPLES - 1);
+            m = Math.max(m, Math.abs(curvature.value(s)) * Math.exp(-lambda * (t - s) / 2));
+        }
+        return Math.min(curvatureMax, 2 * 1.05 * m);
     }
 
     /** The explicit region's edge: about 10^6 terms while sizing boxes, about 1.7 10^7 for a final bound. */
@@ -331,13 +366,13 @@ final class CommonLevel {
      *
      * @throws OracleException past {@code cap} modes along an axis
      */
-    int[] box(double valueBudget, int cap) {
-        return grow(cap, "values", m -> truncation(m)[0] <= valueBudget);
+    int[] box(double valueBudget, int cap, double t) {
+        return grow(cap, "values", m -> truncation(m, t)[0] <= valueBudget);
     }
 
     /** The least box whose truncation of gradients is within the budget (see {@link #box}). */
-    int[] gradientBox(double gradientBudget, int cap) {
-        return grow(cap, "gradients", m -> truncation(m)[1] <= gradientBudget);
+    int[] gradientBox(double gradientBudget, int cap, double t) {
+        return grow(cap, "gradients", m -> truncation(m, t)[1] <= gradientBudget);
     }
 
     private int[] grow(int cap, String what, java.util.function.Predicate<int[]> enough) {

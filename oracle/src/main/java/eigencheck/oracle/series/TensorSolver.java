@@ -1573,7 +1573,7 @@ public final class TensorSolver implements SpatialSolver {
                 mod = modal(needed);
             }
             // with a moving level, the particular part's box joins the transient's
-            int[] particular = moving ? level.box(budget / 8, transientCap) : null;
+            int[] particular = moving ? level.box(budget / 8, transientCap, t) : null;
             int[] transientBox = needed.clone();
             this.transientOnly = transientBox;
             m = needed.clone();
@@ -1619,7 +1619,7 @@ public final class TensorSolver implements SpatialSolver {
             if (particular != null) {
                 double quadrature = level.addParticular(t, m, weighted);
                 // the box is sized on a narrower explicit region; the bounds reported use the widest
-                double[] truncation = level.truncation(m, level.explicitCutoff(true));
+                double[] truncation = level.truncation(m, level.explicitCutoff(true), t);
                 double maxMuAll = 0;
                 for (int i = 0; i < d; i++) {
                     maxMuAll = Math.max(maxMuAll, axes[i].mu[m[i] - 1]);
@@ -1663,7 +1663,7 @@ public final class TensorSolver implements SpatialSolver {
             }
             synchronized (this) {
                 if (gradientBox == null) {
-                    int[] wide = level.gradientBox(limit / 2, transientCap);
+                    int[] wide = level.gradientBox(limit / 2, transientCap, t);
                     int[] union = new int[d];
                     int count = 1;
                     for (int i = 0; i < d; i++) {
@@ -1688,7 +1688,7 @@ public final class TensorSolver implements SpatialSolver {
                     for (int i = 0; i < d; i++) {
                         maxMu = Math.max(maxMu, axes[i].mu[union[i] - 1]);
                     }
-                    double[] truncation = level.truncation(union, level.explicitCutoff(true));
+                    double[] truncation = level.truncation(union, level.explicitCutoff(true), t);
                     double transientPart = modalGradientBound - particularGradientOnValueBox;
                     gradientBox = new GradientBox(union, w, transientPart + truncation[1] + quadrature * maxMu * d);
                 }
