@@ -46,7 +46,8 @@ final class EvalCommand implements Callable<Integer> {
     Path out;
 
     @Option(names = "--quantity", paramLabel = "Q", defaultValue = "temperature",
-        description = "temperature (column u) or flux (column flux, -k du/dx in W/m^2)")
+        description = "temperature (column u) or flux: the heat flux -k grad u in W/m^2, column flux (-k du/dx)"
+            + " for a slab, qx,qy[,qz] for a rectangle or box, qr (radial, outward) for a cylinder or sphere")
     String quantity;
 
     @picocli.CommandLine.Spec
@@ -83,14 +84,23 @@ final class EvalCommand implements Callable<Integer> {
         int n = points.t.length;
         double[] value = new double[n];
         double[] bound = new double[n];
+        boolean slab = problem.domain() instanceof eigencheck.oracle.problem.Slab;
+        // the heat flux of a rectangle, box, cylinder or sphere: -k grad u from the certified gradient
+        int components = q == Oracle.Quantity.HEAT_FLUX && !slab ? oracle.dimension() : 0;
+        double[] flux = components == 0 ? null : new double[n * components];
         try {
-            if (q == Oracle.Quantity.HEAT_FLUX && oracle.dimension() > 1 || q == Oracle.Quantity.HEAT_FLUX
-                && !(problem.domain() instanceof eigencheck.oracle.problem.Slab)) {
-                throw new picocli.CommandLine.ParameterException(spec.commandLine(), "--quantity flux is the slab's"
-                    + " -k du/dx; for " + problem.domain().coordinates() + " bodies evaluate the temperature");
-            }
-            if (oracle.dimension() == 1) {
+            if (slab) {
                 oracle.evaluate(q, points.x, points.t, value, bound);
+            } else if (flux != null) {
+                double[] gradientBound = new double[n];
+                oracle.evaluatePoints(points.x, points.t, value, new double[n], flux, gradientBound);
+                double k = problem.material().conductivity();
+                for (int i = 0; i < flux.length; i++) {
+                    flux[i] *= -k;
+                }
+                for (int i = 0; i < n; i++) {
+                    bound[i] = k * gradientBound[i];
+                }
             } else {
                 oracle.evaluatePoints(points.x, points.t, value, bound, null, null);
             }
@@ -102,7 +112,8 @@ final class EvalCommand implements Callable<Integer> {
                 + message.substring(colon + 2));
         }
         long evaluated = System.nanoTime();
-        String valueColumn = q == Oracle.Quantity.TEMPERATURE ? "u" : "flux";
+        String valueColumn = q == Oracle.Quantity.TEMPERATURE ? "u" : flux == null ? "flux"
+            : components == 1 ? "qr" : components == 2 ? "qx,qy" : "qx,qy,qz";
         // x and t are echoed as the user wrote them; rows are formatted in parallel blocks
         int blocks = Math.max(1, Math.min(64, n / 20_000));
         StringBuilder[] parts = new StringBuilder[blocks];
@@ -115,7 +126,13 @@ final class EvalCommand implements Callable<Integer> {
                 if (!points.tText[i].isEmpty()) {
                     b.append(points.tText[i]).append(',');
                 }
-                b.append(value[i]).append(',');
+                if (flux == null) {
+                    b.append(value[i]).append(',');
+                } else {
+                    for (int c = 0; c < components; c++) {
+                        b.append(flux[i * components + c]).append(',');
+                    }
+                }
                 appendBound(b, bound[i]);
                 b.append('\n');
             }

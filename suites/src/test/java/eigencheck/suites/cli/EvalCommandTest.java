@@ -134,4 +134,22 @@ class EvalCommandTest {
         assertEquals(0, r.code(), r.err());
         assertTrue(r.out().startsWith("x,t,flux,bound\n"), r.out());
     }
+    @Test
+    void fluxOfARectangleIsMinusKGradU() throws IOException {
+        // NAFEMS T4 (TNSB Rev. 3, 1990): on the convective side x = 0.6 the condition -k du/dn = h (u - 0) makes
+        // qx = h u there (the boundary condition itself, common practice), and on the insulated side x = 0, qx = 0
+        Path t4 = Path.of("..", "reference-data", "problems", "nafems-t4.yaml");
+        CliRun r = run("eval", t4.toString(), "--points", file("q.csv", "x,y\n0.6,0.2\n0,0.5\n").toString(), "--quantity",
+            "flux", "--tolerance", "1e-8");
+        assertEquals(0, r.code(), r.err());
+        String[] lines = r.out().split("\n");
+        assertEquals("x,y,qx,qy,bound", lines[0]);
+        String[] side = lines[1].split(",");
+        double qx = Double.parseDouble(side[2]);
+        double bound = Double.parseDouble(side[4]);
+        double u = 18.2537565371; // this oracle's certified u(0.6, 0.2), within 1e-9 (see above)
+        assertTrue(Math.abs(qx - 750 * u) <= bound + 750 * 1e-9, "qx = " + qx + " +- " + bound + ", h u = " + 750 * u);
+        String[] insulated = lines[2].split(",");
+        assertTrue(Math.abs(Double.parseDouble(insulated[2])) <= Double.parseDouble(insulated[4]), lines[2]);
+    }
 }
