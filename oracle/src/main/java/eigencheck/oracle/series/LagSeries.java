@@ -104,6 +104,178 @@ final class LagSeries {
         return new Evaluation(sum, tail + 16 * EPS * magnitude);
     }
 
+    /**
+     * P and its gradient at a point, from the expansion with its smooth part in closed form: with the
+     * modes along axis a (the one whose sides the point is nearer, relative to the lengths) and the
+     * profiles across axis c,
+     * <pre>
+     *   P = q(x_a) + sum_j (1_j / (alpha mu_j^2)) X_j(x_a) (A_j e^{-mu_j x_c} + B_j e^{-mu_j (L_c - x_c)}),
+     * </pre>
+     * q the one-dimensional solution of -alpha q'' = 1 under axis a's conditions (= sum_j 1_j X_j/(alpha
+     * mu_j^2)), so what is summed decays like exp(-mu_j d), d the point's distance from axis c's sides.
+     * |A_j|, |B_j| <= 1.01 (checked on every mode summed; |A| = H/(H + mu) and 1/(1 + e^{-mu L}) to
+     * leading order), |1_j| <= 2/(mu_j N) and mu_j >= j pi / L_a bound the tail by a geometric sum, and
+     * also, whatever d, by the value's algebraic tail. An axis a with insulated sides (Neumann-Neumann)
+     * leaves the constant mode alone: P is then the closed-form quadratic across.
+     *
+     * @param gradient null, or room for {dP/dx, dP/dy}, whose common bound is returned in {@code bounds[1]}
+     * @param bounds {value bound, gradient bound}
+     * @throws OracleException (TOO_MANY_MODES) if the budget needs more than {@link #MAX_MODES} modes
+     */
+    double evaluate(double[] p, int o, double budget, double[] gradient, double[] bounds) {
+        double[] rel = new double[2];
+        double[] dist = new double[2];
+        for (int i = 0; i < 2; i++) {
+            double x = p[o + i];
+            dist[i] = Math.min(x, axes[i].length - x);
+            rel[i] = dist[i] / axes[i].length;
+        }
+        int along = rel[0] <= rel[1] ? 0 : 1;
+        int across = 1 - along;
+        AxisModes ax = axes[along];
+        double xa = p[o + along];
+        double xc = p[o + across];
+        double lc = axes[across].length;
+        if (ax.zero) {
+            // 1 projects on the constant mode alone: P = q across, exactly
+            double value = quadratic(conditions[across], lc, xc) / alpha;
+            if (gradient != null) {
+                gradient[along] = 0;
+                gradient[across] = quadraticSlope(conditions[across], lc, xc) / alpha;
+            }
+            bounds[0] = 8 * EPS * Math.abs(value) + 8 * EPS * lc * lc / alpha;
+            bounds[1] = 8 * EPS * lc / alpha;
+            return value;
+        }
+        double normLow = ax.normLowerBound(Math.min(ax.mu.length, 64));
+        double l = ax.length / Math.PI;
+        int m = 2;
+        double valueTail;
+        double gradientTail;
+        while (true) {
+            valueTail = sideTail(m, 3, across, 0, xc, normLow, l) + sideTail(m, 3, across, 1, lc - xc, normLow, l);
+            gradientTail = sideTail(m, 2, across, 0, xc, normLow, l) + sideTail(m, 2, across, 1, lc - xc, normLow, l);
+            if (valueTail <= budget && (gradient == null || gradientTail <= budget / lc)) {
+                break;
+            }
+            m = m < 64 ? m + 8 : m + m / 4;
+            if (m > MAX_MODES) {
+                throw new OracleException(Reason.TOO_MANY_MODES, "oracle: the lag of a moving level at "
+                    + java.util.Arrays.toString(new double[] {p[o], p[o + 1]}) + " needs more than " + MAX_MODES
+                    + " modes to reach the tolerance" + (gradient != null ? " in its gradient" : "")
+                    + "; loosen the tolerance or move the point away from the corner");
+            }
+        }
+        ax.ensure(m);
+        double[] bc = conditions[across];
+        double[] bcAlong = conditions[along];
+        double value = quadratic(bcAlong, ax.length, xa) / alpha;
+        double slopeAlong = quadraticSlope(bcAlong, ax.length, xa) / alpha;
+        double slopeAcross = 0;
+        double magnitude = Math.abs(value);
+        double gMagnitude = Math.abs(slopeAlong);
+        double e = 0;
+        for (int j = 0; j < m; j++) {
+            double mu = ax.mu[j];
+            double w = ax.integral(j) / ax.norm[j] / (alpha * mu * mu);
+            double[] ab = coefficients(bc, lc, mu);
+            if (Math.abs(ab[0]) > coefficientBound(across, 0, mu) || Math.abs(ab[1]) > coefficientBound(across, 1, mu)) {
+                throw new OracleException(Reason.NOT_CERTIFIED, "oracle: the lag's profile coefficients " + ab[0] + ", "
+                    + ab[1] + " of mode " + j + " exceed what its tail bound assumes");
+            }
+            double near = Math.exp(-mu * xc);
+            double far = Math.exp(-mu * (lc - xc));
+            double arg = mu * xa + ax.phase[j];
+            double shape = ab[0] * near + ab[1] * far;
+            double term = w * shape * Math.sin(arg);
+            value += term;
+            magnitude += Math.abs(term);
+            if (gradient != null) {
+                double ta = w * shape * mu * Math.cos(arg);
+                double tc = w * mu * (-ab[0] * near + ab[1] * far) * Math.sin(arg);
+                slopeAlong += ta;
+                slopeAcross += tc;
+                gMagnitude += Math.abs(ta) + Math.abs(tc);
+            }
+        }
+        if (gradient != null) {
+            gradient[along] = slopeAlong;
+            gradient[across] = slopeAcross;
+        }
+        bounds[0] = valueTail + 16 * EPS * magnitude + 8 * EPS * ax.length * ax.length / alpha;
+        bounds[1] = gradientTail + 16 * EPS * gMagnitude + 8 * EPS * ax.length / alpha;
+        return value;
+    }
+
+    /**
+     * A bound of sum_{j >= m} (|1_j| / (alpha mu_j^2)) mu_j^(3 - p) |C_j| e^{-mu_j d}, C = A (side 0 of the
+     * profile's axis, d = x_c) or B (side 1, d = L_c - x_c), with |1_j| <= 2/(mu_j N) and mu_j >= j pi / L:
+     * |C| <= 1.01 at a Dirichlet side, <= 1.01 H / mu at a convective one (|A| = H/(H + mu) to leading
+     * order), <= 2.02 e^{-mu L_c} at an insulated one. The terms g(j) decrease, so the sum is at most
+     * g(m) + int_m^infinity g, and there e^{-mu d} <= e^{-m pi d / L}. (p = 3 for values, 2 for each
+     * gradient component, which gains one mu.)
+     */
+    /** The bound of |A| (side 0) or |B| (side 1) at mu that {@link #sideTail} assumes. */
+    private double coefficientBound(int axis, int side, double mu) {
+        double a = conditions[axis][2 * side];
+        double b = conditions[axis][2 * side + 1];
+        if (b == 0) {
+            return 1.01;
+        }
+        if (a == 0) {
+            return Math.max(2.02 * Math.exp(-mu * axes[axis].length), 1e-300);
+        }
+        return 1.01 * Math.abs(a) / mu;
+    }
+
+    private double sideTail(int m, int p, int axis, int side, double d, double normLow, double l) {
+        double a = conditions[axis][2 * side];
+        double b = conditions[axis][2 * side + 1];
+        int q = 0;
+        double c = 1.01;
+        double distance = d;
+        if (b == 0) {
+            q = 0; // Dirichlet
+        } else if (a == 0) {
+            distance += axes[axis].length; // insulated: e^{-mu L_c} more
+            c = 2.02;
+        } else {
+            q = 1; // convective: H / mu, H = |a|
+            c = 1.01 * Math.abs(a) * l;
+        }
+        double power = p + q;
+        double constant = 2 / (normLow * alpha) * Math.pow(l, p) * c;
+        double decay = Math.exp(-m * distance / l);
+        return constant * decay * (Math.pow(m, -power) + Math.pow(m, 1 - power) / (power - 1));
+    }
+
+    /** {A, B} of the profile f = 1 + A e^{-mu y} + B e^{-mu (L - y)} (see {@link #profile}). */
+    static double[] coefficients(double[] bc, double len, double mu) {
+        double a0 = bc[0];
+        double b0 = bc[1];
+        double a1 = bc[2];
+        double b1 = bc[3];
+        double e = Math.exp(-mu * len);
+        double p11 = a0 - b0 * mu;
+        double p12 = e * (a0 + b0 * mu);
+        double p21 = e * (a1 - b1 * mu);
+        double p22 = a1 + b1 * mu;
+        double det = p11 * p22 - p12 * p21;
+        return new double[] {(-a0 * p22 + a1 * p12) / det, (-a1 * p11 + a0 * p21) / det};
+    }
+
+    /** q' for {@link #quadratic}. */
+    static double quadraticSlope(double[] bc, double len, double y) {
+        double a0 = bc[0];
+        double b0 = bc[1];
+        double a1 = bc[2];
+        double b1 = bc[3];
+        double det = a0 * (a1 * len + b1) - b0 * a1;
+        double rhs = a1 * len * len / 2 + b1 * len;
+        double a = a0 * rhs / det;
+        return -y + a;
+    }
+
     /** f = 1 + A e^{-mu y} + B e^{-mu (L - y)} under a0 f + b0 f' = 0 at 0 and a1 f + b1 f' = 0 at L. */
     static double profile(double[] bc, double len, double mu, double y) {
         double a0 = bc[0];

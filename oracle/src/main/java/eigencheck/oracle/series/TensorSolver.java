@@ -1433,7 +1433,9 @@ public final class TensorSolver implements SpatialSolver {
             if (lagSeries == null) {
                 throw lagRefused(p, o, "u", e);
             }
-            return lagSeries.value(p, o, tolerance * scale / (8 * level.rateMax));
+            double[] bounds = new double[2];
+            double value = lagSeries.evaluate(p, o, tolerance * scale / (8 * level.rateMax), null, bounds);
+            return new Evaluation(value, bounds[0]);
         }
     }
 
@@ -1445,7 +1447,12 @@ public final class TensorSolver implements SpatialSolver {
             if (e.reason() != Reason.TOO_MANY_MODES && e.reason() != Reason.NOT_CERTIFIED) {
                 throw e;
             }
-            throw lagRefused(p, o, "grad u", e);
+            if (lagSeries == null) {
+                throw lagRefused(p, o, "grad u", e);
+            }
+            double[] bounds = new double[2];
+            lagSeries.evaluate(p, o, tolerance * scale / (8 * level.rateMax), out, bounds);
+            return bounds[1];
         }
     }
 
@@ -1453,7 +1460,7 @@ public final class TensorSolver implements SpatialSolver {
         double[] point = java.util.Arrays.copyOfRange(p, o, o + d);
         return new OracleException(cause.reason(), "oracle: " + what + " at " + java.util.Arrays.toString(point)
             + " needs the lag behind the moving level (P, with -alpha Laplace P = 1), whose series cannot reach a"
-            + " point this near a convective or flux " + (d == 3 ? "face of a box" : "side (gradients)") + " in this"
+            + " point this near a convective or flux " + (d == 3 ? "face of a box" : "side") + " in this"
             + " version; move the point inside, or hold the level constant (" + cause.getMessage() + ")");
     }
 

@@ -67,4 +67,53 @@ class LagSeriesTest {
                 + a.value() + " +- " + a.bound() + " by one series, " + b.value() + " +- " + b.bound() + " by the solver");
         }
     }
+    @Test
+    void closedFormSplitMatchesBothPlainExpansionsAndTheFaceSeriesGradient() {
+        // the split form (the one-dimensional quadratic plus exponentially decaying corrections) against the plain
+        // expansions, near sides and corners included, and its gradient against the rectangle solver's inside
+        double lx = 0.7;
+        double ly = 0.45;
+        double alpha = 0.8;
+        double k = 2;
+        double[][] hOverK = {{INF, 3}, {0, 0.5}};
+        AxisModes[] axes = {new AxisModes(lx, INF, 3), new AxisModes(ly, 0, 0.5)};
+        LagSeries p = new LagSeries(axes, alpha, hOverK);
+        double budget = 1e-11;
+        double[] bounds = new double[2];
+        double[][] points = {{0.3, 1e-4}, {0.004, 0.002}, {lx, 0.2}, {0.69, 0.44}, {0.35, 0.2}, {0, ly}, {1e-6, 0.3}};
+        for (double[] q : points) {
+            double split = p.evaluate(q, 0, budget, null, bounds);
+            for (int along = 0; along < 2; along++) {
+                Evaluation plain = p.value(q, 0, budget, along);
+                assertTrue(Math.abs(split - plain.value()) <= bounds[0] + plain.bound(), "P at " + q[0] + ", " + q[1]
+                    + ": split " + split + " +- " + bounds[0] + ", plain along " + along + " " + plain.value() + " +- "
+                    + plain.bound());
+            }
+        }
+        Map<Side, BoundaryCondition> faces = new EnumMap<>(Side.class);
+        faces.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("0", "y", "t")));
+        faces.put(Side.XMAX, new BoundaryCondition.Robin(3 * k, Expression.parse("0", "y", "t")));
+        faces.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        faces.put(Side.YMAX, new BoundaryCondition.Robin(0.5 * k, Expression.parse("0", "x", "t")));
+        Problem steady = new Problem(new Rectangle(lx, ly), new Material(k, k / alpha), Expression.parse("0", "x", "y"),
+            Expression.parse(String.valueOf(k / alpha), "x", "y", "t"), faces, true);
+        SpatialSolver.Slice solver = new TensorSolver(steady, 0, 1e-11).at(Double.POSITIVE_INFINITY);
+        SplittableRandom random = new SplittableRandom(9);
+        double[] g = new double[2];
+        double[] reference = new double[2];
+        for (int i = 0; i < 30; i++) {
+            double[] q = {(0.05 + 0.9 * random.nextDouble()) * lx, (0.05 + 0.9 * random.nextDouble()) * ly};
+            p.evaluate(q, 0, budget, g, bounds);
+            double referenceBound = solver.gradient(q, 0, reference, 0);
+            for (int c = 0; c < 2; c++) {
+                assertTrue(Math.abs(g[c] - reference[c]) <= bounds[1] + referenceBound, "dP/dx" + c + " at " + q[0] + ", "
+                    + q[1] + ": " + g[c] + " +- " + bounds[1] + " by the split, " + reference[c] + " +- " + referenceBound);
+            }
+        }
+        // on the Neumann side y = 0 the normal derivative vanishes; on the Dirichlet side x = 0, P does
+        p.evaluate(new double[] {0.3, 0}, 0, budget, g, bounds);
+        assertTrue(Math.abs(g[1]) <= bounds[1], "dP/dy on y = 0: " + g[1] + " +- " + bounds[1]);
+        double onDirichlet = p.evaluate(new double[] {0, 0.2}, 0, budget, null, bounds);
+        assertTrue(Math.abs(onDirichlet) <= bounds[0], "P on x = 0: " + onDirichlet + " +- " + bounds[0]);
+    }
 }

@@ -123,7 +123,10 @@ public final class SuiteFile {
         }
         Suite.Solver solver = f.containsKey("solver") ? solver(c, f.get("solver")) : null;
         ReadOptions read = f.containsKey("read") ? read(c, f.get("read")) : ReadOptions.defaults();
-        double length = problem != null && problem.domain() instanceof Slab slab ? slab.length() : manufacturedLength;
+        // h = L / cells: the slab's length, the x edge of a rectangle or box, the radius of a cylinder or sphere
+        double length = problem == null ? manufacturedLength : problem.domain() instanceof Slab slab ? slab.length()
+            : problem.domain().lengths().length > 0 ? problem.domain().lengths()[0]
+            : problem.domain().characteristicLength();
         String[] path = {null};
         List<Suite.Level> levels = new ArrayList<>();
         Node levelsNode = c.required(o, "levels", "give the refinement levels");
