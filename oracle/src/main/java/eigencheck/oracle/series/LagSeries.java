@@ -208,6 +208,77 @@ final class LagSeries {
     }
 
     /**
+     * The exact mean of P over the cell lo < x < hi from the split form of {@link #evaluate}: the
+     * quadratic's mean in closed form, each mode's mean along (as the rectangle's cell means) and the
+     * exponentials' means across, (e^{-mu c0} - e^{-mu c1}) / (mu (c1 - c0)); the tail is the value's at the
+     * cell's points nearest the sides, which bounds every mean over the cell.
+     */
+    Evaluation average(double[] lo, double[] hi, double budget) {
+        double[] rel = new double[2];
+        for (int i = 0; i < 2; i++) {
+            rel[i] = Math.min(lo[i], axes[i].length - hi[i]) / axes[i].length;
+        }
+        int along = rel[0] <= rel[1] ? 0 : 1;
+        int across = 1 - along;
+        AxisModes ax = axes[along];
+        double lc = axes[across].length;
+        double c0 = lo[across];
+        double c1 = hi[across];
+        double a0 = lo[along];
+        double a1 = hi[along];
+        if (ax.zero) {
+            double mean = quadraticMean(conditions[across], lc, c0, c1) / alpha;
+            return new Evaluation(mean, 8 * EPS * Math.abs(mean) + 8 * EPS * lc * lc / alpha);
+        }
+        double normLow = ax.normLowerBound(Math.min(ax.mu.length, 64));
+        double l = ax.length / Math.PI;
+        int m = 2;
+        double tail;
+        while (true) {
+            tail = sideTail(m, 3, across, 0, c0, normLow, l) + sideTail(m, 3, across, 1, lc - c1, normLow, l);
+            if (tail <= budget) {
+                break;
+            }
+            m = m < 64 ? m + 8 : m + m / 4;
+            if (m > MAX_MODES) {
+                throw new OracleException(Reason.TOO_MANY_MODES, "oracle: the lag of a moving level over the cell "
+                    + java.util.Arrays.toString(lo) + " - " + java.util.Arrays.toString(hi) + " needs more than "
+                    + MAX_MODES + " modes; loosen the tolerance");
+            }
+        }
+        ax.ensure(m);
+        double[] bc = conditions[across];
+        double value = quadraticMean(conditions[along], ax.length, a0, a1) / alpha;
+        double magnitude = Math.abs(value);
+        double width = c1 - c0;
+        for (int j = 0; j < m; j++) {
+            double mu = ax.mu[j];
+            double w = ax.integral(j) / ax.norm[j] / (alpha * mu * mu);
+            double[] ab = coefficients(bc, lc, mu);
+            double near = (Math.exp(-mu * c0) - Math.exp(-mu * c1)) / (mu * width);
+            double far = (Math.exp(-mu * (lc - c1)) - Math.exp(-mu * (lc - c0))) / (mu * width);
+            double term = w * (ab[0] * near + ab[1] * far) * TensorSolver.meanOfMode(mu, ax.phase[j], a0, a1);
+            value += term;
+            magnitude += Math.abs(term);
+        }
+        return new Evaluation(value, tail + 16 * EPS * magnitude + 8 * EPS * ax.length * ax.length / alpha);
+    }
+
+    /** The mean of {@link #quadratic} over a < y < b. */
+    static double quadraticMean(double[] bc, double len, double a, double b) {
+        double a0 = bc[0];
+        double b0 = bc[1];
+        double a1 = bc[2];
+        double b1 = bc[3];
+        double det = a0 * (a1 * len + b1) - b0 * a1;
+        double rhs = a1 * len * len / 2 + b1 * len;
+        double slope = a0 * rhs / det;
+        double constant = -b0 * rhs / det;
+        // mean of -y^2/2 + slope y + constant
+        return -(a * a + a * b + b * b) / 6 + slope * (a + b) / 2 + constant;
+    }
+
+    /**
      * A bound of sum_{j >= m} (|1_j| / (alpha mu_j^2)) mu_j^(3 - p) |C_j| e^{-mu_j d}, C = A (side 0 of the
      * profile's axis, d = x_c) or B (side 1, d = L_c - x_c), with |1_j| <= 2/(mu_j N) and mu_j >= j pi / L:
      * |C| <= 1.01 at a Dirichlet side, <= 1.01 H / mu at a convective one (|A| = H/(H + mu) to leading

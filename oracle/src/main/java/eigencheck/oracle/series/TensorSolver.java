@@ -78,7 +78,7 @@ public final class TensorSolver implements SpatialSolver {
     private final double shift;
     /** The level b(t) shared by every temperature and ambient, or null when the data are constant in time. */
     private final CommonLevel level;
-    /** P, with -alpha Laplace P = 1 under the homogeneous conditions: the lag behind a moving level. */
+    /** P, with -alpha Laplace P = 1 under the homogeneous conditions: the lag behind a moving level (box). */
     private final Slice lag;
     private final int lagFaces;
     /** P as one series with closed-form profiles (rectangle): for points P's face series cannot reach. */
@@ -207,9 +207,15 @@ public final class TensorSolver implements SpatialSolver {
         if (level != null && level.rateMax > 0) {
             // P's own tolerance: its error, times max|b'|, within an eighth of the budget (P's scale is L^2/alpha)
             double lagTolerance = tolerance * scale * alpha / (8 * level.rateMax * lengthScale * lengthScale);
-            TensorSolver p = new TensorSolver(lagProblem(problem), 0, Math.max(1e-14, Math.min(0.25, lagTolerance)));
-            this.lag = p.at(Double.POSITIVE_INFINITY);
-            this.lagFaces = p.dataFaces();
+            if (d == 3) {
+                TensorSolver p = new TensorSolver(lagProblem(problem), 0, Math.max(1e-14, Math.min(0.25, lagTolerance)));
+                this.lag = p.at(Double.POSITIVE_INFINITY);
+                this.lagFaces = p.dataFaces();
+            } else {
+                // in a rectangle P is one series with its smooth part in closed form, certified up to the sides
+                this.lag = null;
+                this.lagFaces = 0;
+            }
             if (d == 2) {
                 double[][] hOverK = new double[2][2];
                 for (int i = 0; i < 2; i++) {
@@ -1412,11 +1418,16 @@ public final class TensorSolver implements SpatialSolver {
 
     @Override
     public Steady steadyPart() {
-        if (faces.isEmpty() && lagFaces == 0) {
+        if (faces.isEmpty() && lagFaces == 0 && lagSeries == null) {
             return null;
         }
-        return (p, o) -> lag == null ? new Evaluation[] {steadyTemperature(p, o)}
+        return (p, o) -> !hasLag() ? new Evaluation[] {steadyTemperature(p, o)}
             : new Evaluation[] {steadyTemperature(p, o), lagAt(p, o)};
+    }
+
+    /** Whether u carries the lag term -r(t) P (a level or uniform source that moves). */
+    private boolean hasLag() {
+        return lag != null || lagSeries != null;
     }
 
     /**
@@ -1424,6 +1435,11 @@ public final class TensorSolver implements SpatialSolver {
      * face series cannot reach (points on or very near a convective side), by {@link LagSeries}.
      */
     private Evaluation lagAt(double[] p, int o) {
+        if (lagSeries != null) {
+            double[] bounds = new double[2];
+            double value = lagSeries.evaluate(p, o, tolerance * scale / (8 * level.rateMax), null, bounds);
+            return new Evaluation(value, bounds[0]);
+        }
         try {
             return lag.temperature(p, o);
         } catch (OracleException e) {
@@ -1441,6 +1457,11 @@ public final class TensorSolver implements SpatialSolver {
 
     /** The gradient of P into {@code out}; returns its bound. */
     private double lagGradient(double[] p, int o, double[] out) {
+        if (lagSeries != null) {
+            double[] bounds = new double[2];
+            lagSeries.evaluate(p, o, tolerance * scale / (8 * level.rateMax), out, bounds);
+            return bounds[1];
+        }
         try {
             return lag.gradient(p, o, out, 0);
         } catch (OracleException e) {
@@ -1746,7 +1767,7 @@ public final class TensorSolver implements SpatialSolver {
             if (levelNow != 0 || slopeNow != 0) {
                 value += levelNow;
                 bound += 2 * EPS * Math.abs(levelNow);
-                if (lag != null && slopeNow != 0) {
+                if (hasLag() && slopeNow != 0) {
                     Evaluation lagged = steadyParts != null ? steadyParts[1] : lagAt(p, o);
                     value -= slopeNow * lagged.value();
                     bound += Math.abs(slopeNow) * lagged.bound();
@@ -1785,7 +1806,7 @@ public final class TensorSolver implements SpatialSolver {
                 f.add(p, o, budget / (4 * faces.size()), g, bounds);
                 bound += bounds[1];
             }
-            if (lag != null && slopeNow != 0) {
+            if (hasLag() && slopeNow != 0) {
                 double[] lagged = new double[d];
                 bound += Math.abs(slopeNow) * lagGradient(p, o, lagged);
                 for (int i = 0; i < d; i++) {
@@ -1835,8 +1856,9 @@ public final class TensorSolver implements SpatialSolver {
             }
             value += levelNow;
             bound += 2 * EPS * Math.abs(levelNow);
-            if (lag != null && slopeNow != 0) {
-                Evaluation lagged = lag.average(lo, hi);
+            if (hasLag() && slopeNow != 0) {
+                Evaluation lagged = lagSeries != null
+                    ? lagSeries.average(lo, hi, tolerance * scale / (8 * level.rateMax)) : lag.average(lo, hi);
                 value -= slopeNow * lagged.value();
                 bound += Math.abs(slopeNow) * lagged.bound();
             }

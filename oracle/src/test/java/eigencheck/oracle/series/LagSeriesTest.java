@@ -110,6 +110,28 @@ class LagSeriesTest {
                     + q[1] + ": " + g[c] + " +- " + bounds[1] + " by the split, " + reference[c] + " +- " + referenceBound);
             }
         }
+        // cell means (a cell at a corner included) against a 12 x 12 Gauss-Legendre rule on the split values
+        GaussLegendre rule = GaussLegendre.of(12);
+        double[][][] cells = {{{0, 0}, {0.05, 0.04}}, {{0.3, 0.1}, {0.45, 0.3}}, {{0.6, 0.4}, {lx, ly}}};
+        for (double[][] cell : cells) {
+            double[] lo = cell[0];
+            double[] hi = cell[1];
+            double mean = 0;
+            double quadratureBound = 0;
+            for (int a = 0; a < 12; a++) {
+                for (int b = 0; b < 12; b++) {
+                    double[] q = {lo[0] + (hi[0] - lo[0]) * 0.5 * (rule.nodes[a] + 1),
+                        lo[1] + (hi[1] - lo[1]) * 0.5 * (rule.nodes[b] + 1)};
+                    double w = 0.25 * rule.weights[a] * rule.weights[b];
+                    mean += w * p.evaluate(q, 0, budget, null, bounds);
+                    quadratureBound += w * bounds[0];
+                }
+            }
+            Evaluation exact = p.average(lo, hi, budget);
+            assertTrue(Math.abs(mean - exact.value()) <= exact.bound() + quadratureBound + 1e-12 * Math.abs(mean),
+                "mean over " + java.util.Arrays.toString(lo) + " - " + java.util.Arrays.toString(hi) + ": " + exact.value()
+                    + " +- " + exact.bound() + ", by the rule " + mean);
+        }
         // on the Neumann side y = 0 the normal derivative vanishes; on the Dirichlet side x = 0, P does
         p.evaluate(new double[] {0.3, 0}, 0, budget, g, bounds);
         assertTrue(Math.abs(g[1]) <= bounds[1], "dP/dy on y = 0: " + g[1] + " +- " + bounds[1]);
