@@ -236,6 +236,41 @@ class MovingLevelTest {
         assertTrue(e.getMessage().startsWith("source: changes in time other than uniformly"), e.getMessage());
     }
 
+    /**
+     * With both y sides insulated, a plate whose x sides follow 10 + 5 sin(3 t) (one held there, one convecting
+     * to it) from a non-uniform start is the slab's problem along x; the slab oracle, verified against NAFEMS T3
+     * and closed forms, is the second route (common practice). The y axis then has the zero mode, so the lag's
+     * series reduces to its closed-form quadratic.
+     */
+    @Test
+    void insulatedPairReducesToTheSlab() {
+        Material m = new Material(2, 5);
+        String level = "10 + 5*sin(3*t)";
+        Map<Side, BoundaryCondition> faces = new EnumMap<>(Side.class);
+        faces.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse(level, "y", "t")));
+        faces.put(Side.XMAX, new BoundaryCondition.Robin(7, Expression.parse(level, "y", "t")));
+        faces.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        faces.put(Side.YMAX, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        Problem plate = new Problem(new Rectangle(0.6, 0.3), m, Expression.parse("10 + 4*x*(0.6 - x)", "x", "y"),
+            xyt("0"), faces);
+        Map<Side, BoundaryCondition> ends = new EnumMap<>(Side.class);
+        ends.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse(level, "t")));
+        ends.put(Side.XMAX, new BoundaryCondition.Robin(7, Expression.parse(level, "t")));
+        Problem slab = new Problem(new eigencheck.oracle.problem.Slab(0.6), m, Expression.parse("10 + 4*x*(0.6 - x)", "x"),
+            Expression.parse("0", "x", "t"), ends);
+        Oracle o = Oracle.prepare(plate, 2, 1e-10);
+        Oracle line = Oracle.prepare(slab, 2, 1e-10);
+        for (double t : new double[] {0.05, 0.7, 2}) {
+            for (double[] q : new double[][] {{0.1, 0.15}, {0.3, 0}, {0.55, 0.3}, {0.6, 0.1}, {0.45, 0.2}}) {
+                Evaluation e = o.temperature(q, t);
+                Evaluation reference = line.temperature(q[0], t);
+                assertTrue(Math.abs(e.value() - reference.value()) <= e.bound() + reference.bound(), "u at " + q[0] + ", "
+                    + q[1] + ", t = " + t + ": " + e.value() + " +- " + e.bound() + " against the slab's " + reference.value()
+                    + " +- " + reference.bound());
+            }
+        }
+    }
+
     @Test
     void refusesLevelsThatDifferAndFluxesThatChange() {
         Domain plate = new Rectangle(1, 1);
