@@ -149,25 +149,19 @@ final class LagSeries {
         }
         double normLow = ax.normLowerBound(Math.min(ax.mu.length, 64));
         double l = ax.length / Math.PI;
-        int m = 2;
-        double valueTail;
-        double gradientTail;
-        while (true) {
-            valueTail = sideTail(m, 3, across, 0, xc, normLow, l) + sideTail(m, 3, across, 1, lc - xc, normLow, l);
-            gradientTail = sideTail(m, 2, across, 0, xc, normLow, l) + sideTail(m, 2, across, 1, lc - xc, normLow, l);
-            if (valueTail <= budget && (gradient == null || gradientTail <= budget / lc)) {
-                break;
-            }
-            m = m < 64 ? m + 8 : m + m / 4;
-            if (m > MAX_MODES) {
-                throw new OracleException(Reason.TOO_MANY_MODES, "oracle: the lag of a moving level at "
-                    + java.util.Arrays.toString(new double[] {p[o], p[o + 1]}) + " needs more than " + MAX_MODES
-                    + " modes to reach the tolerance" + (gradient != null ? " in its gradient" : "")
-                    + "; loosen the tolerance or move the point away from the corner");
-            }
+        double[] tails = new double[2];
+        int m = modes(across, xc, lc - xc, normLow, l, budget, gradient == null ? Double.NaN : budget / lc, tails);
+        if (m < 0) {
+            throw new OracleException(Reason.TOO_MANY_MODES, "oracle: the lag of a moving level at "
+                + java.util.Arrays.toString(new double[] {p[o], p[o + 1]}) + " needs more than " + MAX_MODES
+                + " modes to reach the tolerance" + (gradient != null ? " in its gradient" : "")
+                + "; loosen the tolerance or move the point away from the corner");
         }
+        double valueTail = tails[0];
+        double gradientTail = tails[1];
         ax.ensure(m);
         double[] bc = conditions[across];
+        double[] ab = new double[2];
         double[] bcAlong = conditions[along];
         double value = quadratic(bcAlong, ax.length, xa) / alpha;
         double slopeAlong = quadraticSlope(bcAlong, ax.length, xa) / alpha;
@@ -178,7 +172,7 @@ final class LagSeries {
         for (int j = 0; j < m; j++) {
             double mu = ax.mu[j];
             double w = ax.integral(j) / ax.norm[j] / (alpha * mu * mu);
-            double[] ab = coefficients(bc, lc, mu);
+            coefficients(bc, lc, mu, ab);
             if (Math.abs(ab[0]) > coefficientBound(across, 0, mu) || Math.abs(ab[1]) > coefficientBound(across, 1, mu)) {
                 throw new OracleException(Reason.NOT_CERTIFIED, "oracle: the lag's profile coefficients " + ab[0] + ", "
                     + ab[1] + " of mode " + j + " exceed what its tail bound assumes");
@@ -232,29 +226,24 @@ final class LagSeries {
         }
         double normLow = ax.normLowerBound(Math.min(ax.mu.length, 64));
         double l = ax.length / Math.PI;
-        int m = 2;
-        double tail;
-        while (true) {
-            tail = sideTail(m, 3, across, 0, c0, normLow, l) + sideTail(m, 3, across, 1, lc - c1, normLow, l);
-            if (tail <= budget) {
-                break;
-            }
-            m = m < 64 ? m + 8 : m + m / 4;
-            if (m > MAX_MODES) {
-                throw new OracleException(Reason.TOO_MANY_MODES, "oracle: the lag of a moving level over the cell "
-                    + java.util.Arrays.toString(lo) + " - " + java.util.Arrays.toString(hi) + " needs more than "
-                    + MAX_MODES + " modes; loosen the tolerance");
-            }
+        double[] tails = new double[2];
+        int m = modes(across, c0, lc - c1, normLow, l, budget, Double.NaN, tails);
+        if (m < 0) {
+            throw new OracleException(Reason.TOO_MANY_MODES, "oracle: the lag of a moving level over the cell "
+                + java.util.Arrays.toString(lo) + " - " + java.util.Arrays.toString(hi) + " needs more than "
+                + MAX_MODES + " modes; loosen the tolerance");
         }
+        double tail = tails[0];
         ax.ensure(m);
         double[] bc = conditions[across];
+        double[] ab = new double[2];
         double value = quadraticMean(conditions[along], ax.length, a0, a1) / alpha;
         double magnitude = Math.abs(value);
         double width = c1 - c0;
         for (int j = 0; j < m; j++) {
             double mu = ax.mu[j];
             double w = ax.integral(j) / ax.norm[j] / (alpha * mu * mu);
-            double[] ab = coefficients(bc, lc, mu);
+            coefficients(bc, lc, mu, ab);
             double near = (Math.exp(-mu * c0) - Math.exp(-mu * c1)) / (mu * width);
             double far = (Math.exp(-mu * (lc - c1)) - Math.exp(-mu * (lc - c0))) / (mu * width);
             double term = w * (ab[0] * near + ab[1] * far) * TensorSolver.meanOfMode(mu, ax.phase[j], a0, a1);
@@ -264,18 +253,27 @@ final class LagSeries {
         return new Evaluation(value, tail + 16 * EPS * magnitude + 8 * EPS * ax.length * ax.length / alpha);
     }
 
+    /**
+     * The least number of modes whose tails, at distances d0 and d1 from the profile axis's sides, are
+     * within the value budget and (unless NaN) the gradient budget; the tails into {@code tails}, or -1
+     * past {@link #MAX_MODES}.
+     */
+    private int modes(int across, double d0, double d1, double normLow, double l, double valueBudget,
+                      double gradientBudget, double[] tails) {
+        for (int m = 2; m <= MAX_MODES; m = m < 64 ? m + 8 : m + m / 4) {
+            tails[0] = sideTail(m, 3, across, 0, d0, normLow, l) + sideTail(m, 3, across, 1, d1, normLow, l);
+            tails[1] = sideTail(m, 2, across, 0, d0, normLow, l) + sideTail(m, 2, across, 1, d1, normLow, l);
+            if (tails[0] <= valueBudget && (Double.isNaN(gradientBudget) || tails[1] <= gradientBudget)) {
+                return m;
+            }
+        }
+        return -1;
+    }
+
     /** The mean of {@link #quadratic} over a < y < b. */
     static double quadraticMean(double[] bc, double len, double a, double b) {
-        double a0 = bc[0];
-        double b0 = bc[1];
-        double a1 = bc[2];
-        double b1 = bc[3];
-        double det = a0 * (a1 * len + b1) - b0 * a1;
-        double rhs = a1 * len * len / 2 + b1 * len;
-        double slope = a0 * rhs / det;
-        double constant = -b0 * rhs / det;
-        // mean of -y^2/2 + slope y + constant
-        return -(a * a + a * b + b * b) / 6 + slope * (a + b) / 2 + constant;
+        double[] q = quadraticTerms(bc, len);
+        return -(a * a + a * b + b * b) / 6 + q[0] * (a + b) / 2 + q[1];
     }
 
     /**
@@ -322,33 +320,13 @@ final class LagSeries {
 
     /** {A, B} of the profile f = 1 + A e^{-mu y} + B e^{-mu (L - y)} (see {@link #profile}). */
     static double[] coefficients(double[] bc, double len, double mu) {
-        double a0 = bc[0];
-        double b0 = bc[1];
-        double a1 = bc[2];
-        double b1 = bc[3];
-        double e = Math.exp(-mu * len);
-        double p11 = a0 - b0 * mu;
-        double p12 = e * (a0 + b0 * mu);
-        double p21 = e * (a1 - b1 * mu);
-        double p22 = a1 + b1 * mu;
-        double det = p11 * p22 - p12 * p21;
-        return new double[] {(-a0 * p22 + a1 * p12) / det, (-a1 * p11 + a0 * p21) / det};
+        double[] ab = new double[2];
+        coefficients(bc, len, mu, ab);
+        return ab;
     }
 
-    /** q' for {@link #quadratic}. */
-    static double quadraticSlope(double[] bc, double len, double y) {
-        double a0 = bc[0];
-        double b0 = bc[1];
-        double a1 = bc[2];
-        double b1 = bc[3];
-        double det = a0 * (a1 * len + b1) - b0 * a1;
-        double rhs = a1 * len * len / 2 + b1 * len;
-        double a = a0 * rhs / det;
-        return -y + a;
-    }
-
-    /** f = 1 + A e^{-mu y} + B e^{-mu (L - y)} under a0 f + b0 f' = 0 at 0 and a1 f + b1 f' = 0 at L. */
-    static double profile(double[] bc, double len, double mu, double y) {
+    /** As {@link #coefficients(double[], double, double)}, into {@code ab} (no allocation in the mode loops). */
+    static void coefficients(double[] bc, double len, double mu, double[] ab) {
         double a0 = bc[0];
         double b0 = bc[1];
         double a1 = bc[2];
@@ -360,22 +338,35 @@ final class LagSeries {
         double p21 = e * (a1 - b1 * mu);
         double p22 = a1 + b1 * mu;
         double det = p11 * p22 - p12 * p21;
-        double a = (-a0 * p22 + a1 * p12) / det;
-        double b = (-a1 * p11 + a0 * p21) / det;
-        return 1 + a * Math.exp(-mu * y) + b * Math.exp(-mu * (len - y));
+        ab[0] = (-a0 * p22 + a1 * p12) / det;
+        ab[1] = (-a1 * p11 + a0 * p21) / det;
+    }
+
+    /** q' for {@link #quadratic}. */
+    static double quadraticSlope(double[] bc, double len, double y) {
+        return -y + quadraticTerms(bc, len)[0];
+    }
+
+    /** f = 1 + A e^{-mu y} + B e^{-mu (L - y)} under a0 f + b0 f' = 0 at 0 and a1 f + b1 f' = 0 at L. */
+    static double profile(double[] bc, double len, double mu, double y) {
+        double[] ab = coefficients(bc, len, mu);
+        return 1 + ab[0] * Math.exp(-mu * y) + ab[1] * Math.exp(-mu * (len - y));
     }
 
     /** q = -y^2/2 + a y + b, q'' = -1, under the same conditions: alpha p_0 for the constant mode. */
     static double quadratic(double[] bc, double len, double y) {
+        double[] q = quadraticTerms(bc, len);
+        return -y * y / 2 + q[0] * y + q[1];
+    }
+
+    /** {a, b} of {@link #quadratic}: a0 b + b0 a = 0 and a1 b + (a1 L + b1) a = a1 L^2 / 2 + b1 L. */
+    private static double[] quadraticTerms(double[] bc, double len) {
         double a0 = bc[0];
         double b0 = bc[1];
         double a1 = bc[2];
         double b1 = bc[3];
-        // a0 b + b0 a = 0;  a1 b + (a1 L + b1) a = a1 L^2 / 2 + b1 L
         double det = a0 * (a1 * len + b1) - b0 * a1;
         double rhs = a1 * len * len / 2 + b1 * len;
-        double a = a0 * rhs / det;
-        double b = -b0 * rhs / det;
-        return -y * y / 2 + a * y + b;
+        return new double[] {a0 * rhs / det, -b0 * rhs / det};
     }
 }

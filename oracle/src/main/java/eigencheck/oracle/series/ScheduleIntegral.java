@@ -52,7 +52,11 @@ final class ScheduleIntegral {
         /** I(lambda, t), lambda > 0. */
         double value(double lambda) {
             int k = window(lambda);
-            double[] values = windows.computeIfAbsent(k, key -> nodeValues(key, 1));
+            double[] values = windows.get(k);
+            if (values == null) {
+                values = nodeValues(k, 1);
+                windows.put(k, values);
+            }
             return integral(lambda, k, 1, values);
         }
 

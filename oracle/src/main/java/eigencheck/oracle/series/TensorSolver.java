@@ -289,15 +289,10 @@ public final class TensorSolver implements SpatialSolver {
         Expression sigma = at.linear(1 / rhoC, Expression.constant(1, "t"), -at.value(0) / rhoC);
         double worst = 0;
         boolean changes = false;
-        int n = 9;
-        int count = (int) Math.pow(n, d);
+        int count = gridCount();
         double[] p = new double[d];
         for (int c = 0; c < count; c++) {
-            int rest = c;
-            for (int i = 0; i < d; i++) {
-                p[i] = len[i] * (rest % n) / (n - 1.0);
-                rest /= n;
-            }
+            gridPoint(c, p);
             double q0 = valueAt(q, p, 0);
             for (int j = 1; j <= 16; j++) {
                 double t = timeHorizon * j / 16;
@@ -324,16 +319,11 @@ public final class TensorSolver implements SpatialSolver {
      * Returns the largest difference found (temperature units).
      */
     private double requireLevel(Expression g, Expression b, int axis, int side, double timeHorizon) {
-        int n = 9;
-        int count = (int) Math.pow(n, d);
+        int count = gridCount();
         double[] p = new double[d];
         double worst = 0;
         for (int c = 0; c < count; c++) {
-            int rest = c;
-            for (int i = 0; i < d; i++) {
-                p[i] = len[i] * (rest % n) / (n - 1.0);
-                rest /= n;
-            }
+            gridPoint(c, p);
             if (p[axis] != 0) {
                 continue; // one layer of the grid, moved onto the side
             }
@@ -391,15 +381,10 @@ public final class TensorSolver implements SpatialSolver {
         }
         double variation = 0;
         boolean constant = timeHorizon > 0 && timeHorizon < Double.POSITIVE_INFINITY;
-        int n = 9;
-        int count = (int) Math.pow(n, d);
+        int count = gridCount();
         double[] p = new double[d];
         for (int c = 0; c < count && constant; c++) {
-            int rest = c;
-            for (int i = 0; i < d; i++) {
-                p[i] = len[i] * (rest % n) / (n - 1.0);
-                rest /= n;
-            }
+            gridPoint(c, p);
             double v0 = valueAt(e, p, 0);
             for (int j = 1; j <= 4 && constant; j++) {
                 double v = valueAt(e, p, timeHorizon * j / 4);
@@ -612,6 +597,20 @@ public final class TensorSolver implements SpatialSolver {
         return Double.isNaN(c) ? 0 : c;
     }
 
+    /** The number of points of the 9^d sampling grid. */
+    private int gridCount() {
+        return (int) Math.pow(9, d);
+    }
+
+    /** Point c of the 9^d sampling grid, nodes at j/8 of each edge (the faces included), into p. */
+    private void gridPoint(int c, double[] p) {
+        int rest = c;
+        for (int i = 0; i < d; i++) {
+            p[i] = len[i] * (rest % 9) / 8.0;
+            rest /= 9;
+        }
+    }
+
     /** The largest |Q| at 9^d points of the body (t = 0). */
     private double sourceSize(Expression q) {
         int n = 9;
@@ -631,15 +630,10 @@ public final class TensorSolver implements SpatialSolver {
 
     private double scaleOf(Problem problem) {
         double u = 0;
-        int n = 9;
-        int count = (int) Math.pow(n, d);
+        int count = gridCount();
         double[] p = new double[d];
         for (int c = 0; c < count; c++) {
-            int rest = c;
-            for (int i = 0; i < d; i++) {
-                p[i] = len[i] * (rest % n) / (n - 1.0);
-                rest /= n;
-            }
+            gridPoint(c, p);
             if (!steady) {
                 u = Math.max(u, Math.abs(valueAt(initial, p)));
             }
