@@ -126,14 +126,19 @@ final class CommonLevel {
      * @throws OracleException if one of them is not finite at a sample
      */
     static double[] sizes(Expression level, Expression slope, Expression curvature, double horizon) {
+        return sizes(level, slope, curvature, horizon, "the common level");
+    }
+
+    /** As above, {@code what} naming the schedule in messages. */
+    static double[] sizes(Expression level, Expression slope, Expression curvature, double horizon, String what) {
         double bMax = 0;
         double b1Max = 0;
         double b2Max = 0;
         for (int i = 0; i < SAMPLES; i++) {
             double t = horizon * i / (SAMPLES - 1);
-            bMax = Math.max(bMax, Math.abs(finite(level, t, "the common level")));
-            b1Max = Math.max(b1Max, Math.abs(finite(slope, t, "the rate of the common level")));
-            b2Max = Math.max(b2Max, Math.abs(finite(curvature, t, "the second derivative of the common level")));
+            bMax = Math.max(bMax, Math.abs(finite(level, t, what)));
+            b1Max = Math.max(b1Max, Math.abs(finite(slope, t, "the rate of " + what)));
+            b2Max = Math.max(b2Max, Math.abs(finite(curvature, t, "the second derivative of " + what)));
         }
         return new double[] {bMax, 1.05 * b1Max, 1.05 * b2Max};
     }

@@ -83,7 +83,15 @@ public final class TensorSolver implements SpatialSolver {
     private final int lagFaces;
     /** P as one series with closed-form profiles (rectangle): for points P's face series cannot reach. */
     private final LagSeries lagSeries;
+    /** The terms theta(t) phi(s) of rectangle sides whose data change in time other than by a common level. */
+    private final List<Moving> moving = new ArrayList<>();
+    /** Each side's data as given (with t), for u on a Dirichlet side. */
+    private final Expression[][] original = new Expression[3][2];
     private Modal modal;
+
+    /** One term of a side's change in time: its schedule and the face series of its shape. */
+    private record Moving(SideSchedule schedule, Face shape) {
+    }
 
     public TensorSolver(Problem problem, double timeHorizon, double tolerance) {
         if (!(tolerance > 0 && tolerance < 1)) {
@@ -106,11 +114,26 @@ public final class TensorSolver implements SpatialSolver {
         double variation = 0;
         axes = new AxisModes[d];
         Expression levelExpression = steady ? null : levelOf(problem);
+        // a rectangle whose sides change in time other than by one level: each side's change as terms theta(t) phi(s)
+        boolean perSide = d == 2 && !steady && timeHorizon > 0 && needsSchedules(problem, levelExpression, timeHorizon);
+        if (perSide) {
+            levelExpression = null;
+        }
+        List<Object[]> pending = new ArrayList<>();
+        double movingSize = 0;
         for (int i = 0; i < d; i++) {
             double[] hk = new double[2];
             for (int s = 0; s < 2; s++) {
                 BoundaryCondition c = problem.condition(SIDES[i][s]);
-                if (levelExpression != null && !(c instanceof BoundaryCondition.Neumann)) {
+                original[i][s] = c.data();
+                double units = c instanceof BoundaryCondition.Neumann ? lengthScale / k : 1;
+                if (perSide && c.data().variables().contains("t") && !c.data().isIndependentOf("t")) {
+                    double[] sizes = new double[2];
+                    pending.addAll(changeTerms(c.data(), i, s, timeHorizon, sizes));
+                    variation += 2 * sizes[0] * units;
+                    movingSize += sizes[1] * units;
+                    data[i][s] = c.data().substitute("t", 0);
+                } else if (levelExpression != null && !(c instanceof BoundaryCondition.Neumann)) {
                     variation += 2 * requireLevel(c.data(), levelExpression, i, s, timeHorizon);
                     data[i][s] = c.data().variables().contains("t") ? c.data().substitute("t", 0) : c.data();
                 } else {
@@ -153,7 +176,7 @@ public final class TensorSolver implements SpatialSolver {
             : new CommonLevel(levelExpression, heating, timeHorizon, alpha, axes);
         // a uniform source that changes in time moves the temperature by up to max |sigma| T
         double heated = heating == null ? 0 : CommonLevel.sizes(heating, heating, heating, timeHorizon)[0] * timeHorizon;
-        this.scale = scaleOf(problem) + (level == null ? 0 : level.levelMax) + heated;
+        this.scale = scaleOf(problem) + (level == null ? 0 : level.levelMax) + heated + movingSize;
         Expression q = problem.source();
         // a source that is rounding noise (a manufactured source whose terms cancel) is taken as zero: its
         // sampled size, doubled, joins the bound; fitting the noise would only chase rounding
@@ -241,6 +264,135 @@ public final class TensorSolver implements SpatialSolver {
                 }
             }
         }
+        for (Object[] term : pending) {
+            int axis = (Integer) term[0];
+            int side = (Integer) term[1];
+            Face f = new Face(axis, side, (Expression) term[3]);
+            if (f.present) {
+                moving.add(new Moving(new SideSchedule(axis, side, (Expression) term[2], timeHorizon,
+                    "the schedule of boundary." + SIDES[axis][side].key()), f));
+            }
+        }
+    }
+
+    /**
+     * Whether a side's data change in time other than by the common level (or, without one, at all
+     * for a flux side): then a rectangle takes each side's change as its own terms.
+     */
+    private boolean needsSchedules(Problem problem, Expression levelExpression, double timeHorizon) {
+        for (int i = 0; i < d; i++) {
+            for (int s = 0; s < 2; s++) {
+                BoundaryCondition c = problem.condition(SIDES[i][s]);
+                Expression e = c.data();
+                if (!e.variables().contains("t") || e.isIndependentOf("t")) {
+                    continue;
+                }
+                try {
+                    if (levelExpression != null && !(c instanceof BoundaryCondition.Neumann)) {
+                        requireLevel(e, levelExpression, i, s, timeHorizon);
+                    } else {
+                        requireConstantInTime(e, "boundary." + SIDES[i][s].key(), timeHorizon);
+                    }
+                } catch (OracleException refused) {
+                    if (refused.reason() != Reason.UNSUPPORTED) {
+                        throw refused;
+                    }
+                    return true;
+                }
+            }
+        }
+        return false;
+    }
+
+    /**
+     * The change of a rectangle side's data g(s, t) - g(s, 0) as at most four terms theta_k(t) phi_k(s),
+     * by cross approximation on 17 points of the side and 32 times: each term is the residual's line
+     * through its largest sample, R(s, t*) R(s*, t) / R(s*, t*), so the residual vanishes on that cross.
+     * The residual left must be below 1e-12 of the data's size at 33 points and 48 other times, or the
+     * side is refused. Returns {axis, side, theta over t, phi} per term; {largest residual, largest
+     * change} go into {@code sizes}.
+     */
+    private List<Object[]> changeTerms(Expression g, int axis, int side, double horizon, double[] sizes) {
+        String field = "boundary." + SIDES[axis][side].key();
+        String[] vars = g.variables().toArray(String[]::new);
+        int b = 1 - axis;
+        double at = side == 0 ? 0 : len[axis];
+        Expression residual = g.linear(1, g.substitute("t", 0).over(vars), -1);
+        double size = 0;
+        double[] point = new double[d];
+        point[axis] = at;
+        for (int i = 0; i <= 16; i++) {
+            point[b] = len[b] * i / 16;
+            for (int j = 0; j <= 32; j++) {
+                size = Math.max(size, Math.abs(valueAt(g, point, horizon * j / 32)));
+            }
+        }
+        double limit = 1e-12 * Math.max(1, size);
+        List<Object[]> terms = new ArrayList<>();
+        double change = 0;
+        for (int term = 0; term <= 4; term++) {
+            double best = 0;
+            double bestS = 0;
+            double bestT = 0;
+            for (int i = 0; i <= 16; i++) {
+                point[b] = len[b] * i / 16;
+                for (int j = 1; j <= 32; j++) {
+                    double v = Math.abs(valueAt(residual, point, horizon * j / 32));
+                    if (term == 0) {
+                        change = Math.max(change, v);
+                    }
+                    if (v > best) {
+                        best = v;
+                        bestS = point[b];
+                        bestT = horizon * j / 32;
+                    }
+                }
+            }
+            if (best <= limit) {
+                break;
+            }
+            if (term == 4) {
+                throw new OracleException(Reason.UNSUPPORTED, field + ": changes in time in a way that is not a sum"
+                    + " of at most four terms (shape along the side) x (schedule in t) (after four, " + best + " is left"
+                    + " at " + NAMES[b] + " = " + bestS + " m and t = " + bestT + " s); this version solves rectangles"
+                    + " whose side data change in time by such terms; for other time-dependent data use a manufactured"
+                    + " solution");
+            }
+            Expression theta = residual;
+            for (String v : vars) {
+                if (v.equals(NAMES[axis])) {
+                    theta = theta.substitute(v, at);
+                } else if (v.equals(NAMES[b])) {
+                    theta = theta.substitute(v, bestS);
+                } else if (!v.equals("t")) {
+                    theta = theta.substitute(v, 0);
+                }
+            }
+            theta = theta.over("t");
+            point[b] = bestS;
+            double pivot = valueAt(residual, point, bestT);
+            Expression shape = residual.substitute("t", bestT);
+            shape = shape.linear(1 / pivot, shape, 0).over(vars);
+            terms.add(new Object[] {axis, side, theta, shape});
+            residual = residual.linear(1, theta.over(vars).times(shape), -1);
+        }
+        double left = 0;
+        for (int i = 0; i <= 32; i++) {
+            point[b] = len[b] * (i + 0.37) / 33.37;
+            for (int j = 1; j <= 48; j++) {
+                double v = Math.abs(valueAt(residual, point, horizon * (j - 0.41) / 47.59));
+                left = Math.max(left, v);
+            }
+        }
+        if (left > limit) {
+            throw new OracleException(Reason.UNSUPPORTED, field + ": changes in time in a way that is not a sum of at"
+                + " most four terms (shape along the side) x (schedule in t) (" + left + " is left between the"
+                + " sampled points); this version solves rectangles whose side data change in time by such terms; for"
+                + " other time-dependent data use a manufactured solution");
+        }
+        sizes[0] = left;
+        sizes[1] = change;
+        return terms;
     }
 
     /**
@@ -338,9 +490,10 @@ public final class TensorSolver implements SpatialSolver {
                     throw new OracleException(Reason.UNSUPPORTED, "boundary." + SIDES[axis][side].key() + ": changes"
                         + " in time other than by the level b(t) of the first side that does (at "
                         + java.util.Arrays.toString(p) + " and t = " + t + " s it is " + gt + ", not " + (g0 + b.value(t))
-                        + "); this version solves rectangles and boxes whose side temperatures and ambients change in"
-                        + " time by one common b(t), constant in time otherwise, with flux data and the source constant"
-                        + " in time; for other time-dependent data use a manufactured solution");
+                        + "); this version solves boxes whose face temperatures and ambients change in time by one"
+                        + " common b(t), constant in time otherwise, with flux data and the source constant in time"
+                        + " (rectangles also take each side's own change in time); for other time-dependent data use a"
+                        + " manufactured solution");
                 }
             }
             p[axis] = 0;
@@ -393,10 +546,11 @@ public final class TensorSolver implements SpatialSolver {
             }
         }
         if (!constant) {
-            throw new OracleException(Reason.UNSUPPORTED, field + ": depends on t; this version solves rectangles and"
-                + " boxes whose source and flux data are constant in time and whose side temperatures and ambients are"
-                + " constant or move together by one level b(t) (the initial temperature may be anything); for other"
-                + " time-dependent data use a manufactured solution");
+            throw new OracleException(Reason.UNSUPPORTED, field + ": depends on t; this version solves boxes whose"
+                + " flux data are constant in time and whose face temperatures and ambients are constant or move"
+                + " together by one level b(t), and rectangles whose sides change in time by terms (shape along the"
+                + " side) x (schedule); a source may change in time by the same amount everywhere (the initial"
+                + " temperature may be anything); for other time-dependent data use a manufactured solution");
         }
         return variation;
     }
@@ -778,12 +932,19 @@ public final class TensorSolver implements SpatialSolver {
         final int[] cap;
         final double depth;
         final boolean present;
+        /** The shape phi of a term of the data's change in time (B-form data phi, or h phi), or null: the data at t = 0. */
+        final Expression shape;
         private final double variation;
         private volatile Table table;
 
         Face(int axis, int side) {
+            this(axis, side, null);
+        }
+
+        Face(int axis, int side, Expression shape) {
             this.axis = axis;
             this.side = side;
+            this.shape = shape;
             this.depth = len[axis];
             tangential = new int[d - 1];
             for (int i = 0, j = 0; i < d; i++) {
@@ -801,6 +962,15 @@ public final class TensorSolver implements SpatialSolver {
             variation = present && d == 2 ? variationOfData() : Double.NaN;
         }
 
+        /** The data this face's series solves at a point on it: the shifted data less the source part, or the shape. */
+        double boundaryData(double[] point) {
+            if (shape == null) {
+                return shiftedData(axis, side, point) - sourcePart(axis, side, point);
+            }
+            double g = valueAt(shape, point);
+            return type[axis][side] == ROBIN ? h[axis][side] * g : g;
+        }
+
         /**
          * For a rectangle's side: V = |G(0)| + |G(L)| + 2 int |G'| (the integral by a 2048-point rule,
          * doubled), which bounds |<G, X_j>| <= V/mu_j by one integration by parts; NaN when the data may
@@ -808,10 +978,10 @@ public final class TensorSolver implements SpatialSolver {
          */
         private double variationOfData() {
             int t = tangential[0];
-            Expression e = data[axis][side];
+            Expression e = shape != null ? shape : data[axis][side];
             boolean rough = e.mayBeNonSmooth();
             for (Expression part : sourceParts) {
-                rough |= part != null && part.mayBeNonSmooth();
+                rough |= shape == null && part != null && part.mayBeNonSmooth();
             }
             if (rough) {
                 return Double.NaN;
@@ -825,16 +995,16 @@ public final class TensorSolver implements SpatialSolver {
             for (int q = 0; q < 2048; q++) {
                 point[t] = rule[0][q];
                 double g = de == null ? 0 : scaleData * valueAt(de, point);
-                if (sourceSlices[t] != null && type[axis][side] != NEUMANN) {
+                if (shape == null && sourceSlices[t] != null && type[axis][side] != NEUMANN) {
                     double slope = -sourceSlices[t].heatFlux(point[t]).value() / k;
                     g -= (type[axis][side] == ROBIN ? h[axis][side] : 1) * slope;
                 }
                 integral += rule[1][q] * Math.abs(g);
             }
             point[t] = 0;
-            double g0 = shiftedData(axis, side, point) - sourcePart(axis, side, point);
+            double g0 = boundaryData(point);
             point[t] = len[t];
-            double gL = shiftedData(axis, side, point) - sourcePart(axis, side, point);
+            double gL = boundaryData(point);
             double v = Math.abs(g0) + Math.abs(gL) + 2 * integral;
             return Double.isFinite(v) ? v : Double.NaN;
         }
@@ -854,6 +1024,25 @@ public final class TensorSolver implements SpatialSolver {
             double c = 2 * variation * lt * lt / (Math.PI * Math.PI * n * k * (1 - e1));
             double cg = 4 * variation * lt / (Math.PI * n * k * (1 - e1));
             return new double[] {c * geometric / ((double) m * m), cg * geometric / m};
+        }
+
+        private volatile Table boundsTable;
+
+        /**
+         * A rectangle side's coefficients for at least {@code needed} modes, kept apart from the table the
+         * series sums (whose projection error, which grows with the rule, enters every point's bound).
+         */
+        Table boundsTable(int needed) {
+            Table t = boundsTable;
+            if (t != null && t.size[0] >= needed) {
+                return t;
+            }
+            synchronized (this) {
+                if (boundsTable == null || boundsTable.size[0] < needed) {
+                    boundsTable = new Table(new int[] {Math.min(cap[0], needed)});
+                }
+                return boundsTable;
+            }
         }
 
         /** Coefficients for at least {@code needed} modes per direction. */
@@ -889,6 +1078,16 @@ public final class TensorSolver implements SpatialSolver {
             final double[] amplitude; // a_m
             final double[] rho;
             final double[] beta; // kappa = 0: y = 1 + beta s
+            // the resonant profile d(a y)/d(kappa^2): da/dkappa, drho/dkappa; kappa = 0: a (s^2/2 + beta s^3/6) + c1 + c2 s
+            final double[] dAmplitude;
+            final double[] dRho;
+            final double[] d2Amplitude;
+            final double[] d2Rho;
+            final double[] c1;
+            final double[] c2;
+            // kappa = 0, order 2: a (s^4/24 + beta s^5/120) + c1 s^2/2 + c2 s^3/6 + d1 + d2 s
+            final double[] d1;
+            final double[] d2;
             final double error;
             final double norm;
             final double sup; // bound of 2 |a_m| |G_m| over all m
@@ -899,8 +1098,7 @@ public final class TensorSolver implements SpatialSolver {
                 this.size = size.clone();
                 double[] base = new double[d];
                 base[axis] = side == 0 ? 0 : len[axis];
-                double[][] p = project(point -> shiftedData(axis, side, point) - sourcePart(axis, side, point), tangential,
-                    this.size, base);
+                double[][] p = project(Face.this::boundaryData, tangential, this.size, base);
                 norm = p[1][1];
                 coef = p[0];
                 error = p[1][0];
@@ -909,6 +1107,14 @@ public final class TensorSolver implements SpatialSolver {
                 amplitude = new double[count];
                 rho = new double[count];
                 beta = new double[count];
+                dAmplitude = new double[count];
+                dRho = new double[count];
+                d2Amplitude = new double[count];
+                d2Rho = new double[count];
+                c1 = new double[count];
+                c2 = new double[count];
+                d1 = new double[count];
+                d2 = new double[count];
                 double normLower = 1;
                 for (int i = 0; i < tangential.length; i++) {
                     normLower *= axes[tangential[i]].normLowerBound(this.size[i]);
@@ -929,6 +1135,10 @@ public final class TensorSolver implements SpatialSolver {
                     kappa[c] = kap;
                     double y0;
                     double dy0;
+                    double y0k = 0; // d y(0)/d kappa
+                    double dy0k = 0; // d y'(0)/d kappa
+                    double y0kk = 0;
+                    double dy0kk = 0;
                     if (kap == 0) {
                         beta[c] = switch (type[axis][far]) {
                             case DIRICHLET -> -1 / depth;
@@ -943,9 +1153,20 @@ public final class TensorSolver implements SpatialSolver {
                             case NEUMANN -> 1;
                             default -> (k * kap - h[axis][far]) / (k * kap + h[axis][far]);
                         };
+                        if (type[axis][far] == ROBIN) {
+                            double q = k * kap + h[axis][far];
+                            dRho[c] = 2 * k * h[axis][far] / (q * q);
+                            d2Rho[c] = -4 * k * k * h[axis][far] / (q * q * q);
+                        }
                         double e = Math.exp(-2 * kap * depth);
                         y0 = 1 + rho[c] * e;
                         dy0 = kap * (-1 + rho[c] * e);
+                        y0k = (dRho[c] - 2 * depth * rho[c]) * e;
+                        dy0k = -1 + e * (rho[c] + kap * dRho[c] - 2 * kap * depth * rho[c]);
+                        double dd = depth;
+                        y0kk = (d2Rho[c] - 4 * dd * dRho[c] + 4 * dd * dd * rho[c]) * e;
+                        dy0kk = (2 * dRho[c] + kap * d2Rho[c] - 4 * dd * rho[c] - 4 * kap * dd * dRho[c]
+                            + 4 * kap * dd * dd * rho[c]) * e;
                     }
                     double b = switch (type[axis][side]) {
                         case DIRICHLET -> y0;
@@ -958,6 +1179,40 @@ public final class TensorSolver implements SpatialSolver {
                     }
                     double a = 1 / b;
                     amplitude[c] = a;
+                    if (kap > 0) {
+                        double bk = switch (type[axis][side]) {
+                            case DIRICHLET -> y0k;
+                            case NEUMANN -> -k * dy0k;
+                            default -> -k * dy0k + h[axis][side] * y0k;
+                        };
+                        dAmplitude[c] = -bk * a * a;
+                        double bkk = switch (type[axis][side]) {
+                            case DIRICHLET -> y0kk;
+                            case NEUMANN -> -k * dy0kk;
+                            default -> -k * dy0kk + h[axis][side] * y0kk;
+                        };
+                        d2Amplitude[c] = -bkk * a * a + 2 * bk * bk * a * a * a;
+                    } else {
+                        // P'' = a (1 + beta s), the face's and the far face's homogeneous conditions fix c1 + c2 s
+                        double p0 = type[axis][side] == DIRICHLET ? 1 : type[axis][side] == NEUMANN ? 0 : h[axis][side];
+                        double q0 = type[axis][side] == DIRICHLET ? 0 : type[axis][side] == NEUMANN ? 1 : -k;
+                        double pD = type[axis][far] == DIRICHLET ? 1 : type[axis][far] == NEUMANN ? 0 : h[axis][far];
+                        double qD = type[axis][far] == DIRICHLET ? 0 : type[axis][far] == NEUMANN ? 1 : k;
+                        double v = depth * depth / 2 + beta[c] * depth * depth * depth / 6;
+                        double dv = depth + beta[c] * depth * depth / 2;
+                        double rhs = -a * (pD * v + qD * dv);
+                        double det = p0 * (pD * depth + qD) - q0 * pD;
+                        c1[c] = -q0 * rhs / det;
+                        c2[c] = p0 * rhs / det;
+                        // order 2: the particular part a (s^4/24 + beta s^5/120) + c1 s^2/2 + c2 s^3/6, then d1 + d2 s
+                        double d4 = depth * depth * depth * depth;
+                        double v2 = a * (d4 / 24 + beta[c] * d4 * depth / 120) + c1[c] * depth * depth / 2
+                            + c2[c] * depth * depth * depth / 6;
+                        double dv2 = a * (d4 / depth / 6 + beta[c] * d4 / 24) + c1[c] * depth + c2[c] * depth * depth / 2;
+                        double rhs2 = -(pD * v2 + qD * dv2);
+                        d1[c] = -q0 * rhs2 / det;
+                        d2[c] = p0 * rhs2 / det;
+                    }
                     aMax = Math.max(aMax, Math.abs(a));
                     double profile = kap == 0 ? Math.abs(a) * Math.sqrt(depth)
                         : Math.abs(a) * Math.sqrt(Math.min(2 / kap, 4 * depth));
@@ -983,7 +1238,139 @@ public final class TensorSolver implements SpatialSolver {
          * {value bound, gradient bound} in {@code bounds}.
          */
         double add(double[] p, int o, double budget, double[] grad, double[] bounds) {
-            return add(p, o, null, budget, grad, bounds);
+            return add(p, o, null, budget, grad, bounds, 0);
+        }
+
+        double add(double[] p, int o, double[] hi, double budget, double[] grad, double[] bounds) {
+            return add(p, o, hi, budget, grad, bounds, 0);
+        }
+
+        /**
+         * The lag profile of order 1 or 2 of mode {@code index} at distance s: {Pi, dPi/ds} into out. Order 1:
+         * Pi_1 = d(a y)/d(kappa^2), Pi_1'' - kappa^2 Pi_1 = a y; order 2: Pi_2 = (1/2) d Pi_1/d(kappa^2),
+         * Pi_2'' - kappa^2 Pi_2 = Pi_1; both under the homogeneous conditions of this face and the far one
+         * (differentiating y'' = kappa^2 y and the conditions, which do not name kappa, in kappa^2).
+         */
+        void lagProfile(Table tb, int index, int order, double s, double[] out) {
+            double kap = tb.kappa[index];
+            double a = tb.amplitude[index];
+            if (kap == 0) {
+                double beta = tb.beta[index];
+                double s2 = s * s;
+                double s3 = s2 * s;
+                if (order == 1) {
+                    out[0] = a * (s2 / 2 + beta * s3 / 6) + tb.c1[index] + tb.c2[index] * s;
+                    out[1] = a * (s + beta * s2 / 2) + tb.c2[index];
+                } else {
+                    out[0] = a * (s2 * s2 / 24 + beta * s2 * s3 / 120) + tb.c1[index] * s2 / 2 + tb.c2[index] * s3 / 6
+                        + tb.d1[index] + tb.d2[index] * s;
+                    out[1] = a * (s3 / 6 + beta * s2 * s2 / 24) + tb.c1[index] * s + tb.c2[index] * s2 / 2 + tb.d2[index];
+                }
+                return;
+            }
+            double[] c = lagCoefficients(tb, index, order);
+            double e1 = Math.exp(-kap * s);
+            double e2 = Math.exp(-kap * (2 * depth - s));
+            double near = c[0] + s * (c[1] + s * c[2]);
+            double far = c[3] + s * (c[4] + s * c[5]);
+            out[0] = near * e1 + far * e2;
+            out[1] = (c[1] + 2 * c[2] * s - kap * near) * e1 + (c[4] + 2 * c[5] * s + kap * far) * e2;
+        }
+
+        /**
+         * Pi = (p0 + p1 s + p2 s^2) exp(-kappa s) + (q0 + q1 s + q2 s^2) exp(-kappa (2D - s)): {p0, p1, p2, q0,
+         * q1, q2}, from a(kappa) and rho(kappa) with their first two derivatives (Pi_1 = DY/(2 kappa), Pi_2 =
+         * (D^2 Y - DY/kappa)/(8 kappa^2), D = d/d kappa, Y = a y).
+         */
+        private double[] lagCoefficients(Table tb, int index, int order) {
+            double kap = tb.kappa[index];
+            double a = tb.amplitude[index];
+            double da = tb.dAmplitude[index];
+            double rho = tb.rho[index];
+            double dr = tb.dRho[index];
+            double dd = depth;
+            if (order == 1) {
+                double half = 1 / (2 * kap);
+                return new double[] {da * half, -a * half, 0, (da * rho + a * (dr - 2 * dd * rho)) * half, a * rho * half, 0};
+            }
+            double d2a = tb.d2Amplitude[index];
+            double d2r = tb.d2Rho[index];
+            double f = 1 / (8 * kap * kap);
+            double q0 = d2a * rho + 2 * da * dr - 4 * dd * da * rho + a * d2r - 4 * dd * a * dr + 4 * dd * dd * a * rho
+                - (da * rho + a * dr - 2 * dd * a * rho) / kap;
+            double q1 = 2 * da * rho + 2 * a * dr - 4 * dd * a * rho - a * rho / kap;
+            return new double[] {(d2a - da / kap) * f, (-2 * da + a / kap) * f, a * f, q0 * f, q1 * f, a * rho * f};
+        }
+
+        /** The mean of a lag profile over distances [s, s + w]: closed form, or 10-point Gauss when kappa w < 2. */
+        double lagMean(Table tb, int index, int order, double s, double w) {
+            double kap = tb.kappa[index];
+            if (kap * w < 2) {
+                GaussLegendre g = GaussLegendre.of(10);
+                double[] out = new double[2];
+                double sum = 0;
+                for (int q = 0; q < g.nodes.length; q++) {
+                    lagProfile(tb, index, order, s + 0.5 * w * (g.nodes[q] + 1), out);
+                    sum += g.weights[q] * out[0];
+                }
+                return 0.5 * sum;
+            }
+            double[] c = lagCoefficients(tb, index, order);
+            double s2 = s + w;
+            double ik = 1 / kap;
+            // antiderivatives of s^j exp(-kappa s) and s^j exp(kappa (s - 2D)), j = 0, 1, 2, over [s, s2]
+            double a1 = Math.exp(-kap * s);
+            double b1 = Math.exp(-kap * s2);
+            double near = c[0] * ik * (a1 - b1)
+                + c[1] * ((s * ik + ik * ik) * a1 - (s2 * ik + ik * ik) * b1)
+                + c[2] * ((s * s * ik + 2 * s * ik * ik + 2 * ik * ik * ik) * a1
+                    - (s2 * s2 * ik + 2 * s2 * ik * ik + 2 * ik * ik * ik) * b1);
+            double a2 = Math.exp(-kap * (2 * depth - s2));
+            double b2 = Math.exp(-kap * (2 * depth - s));
+            double far = c[3] * ik * (a2 - b2)
+                + c[4] * ((s2 * ik - ik * ik) * a2 - (s * ik - ik * ik) * b2)
+                + c[5] * ((s2 * s2 * ik - 2 * s2 * ik * ik + 2 * ik * ik * ik) * a2
+                    - (s * s * ik - 2 * s * ik * ik + 2 * ik * ik * ik) * b2);
+            return (near + far) / w;
+        }
+
+        /**
+         * {value factor, gradient factor} of a lag profile of the given order for every mode with that kappa or
+         * more, relative to the face series' own bounds (|a| 2 exp(-kappa s) and (kappa + mu) times that): with
+         * e = exp(-2 kappa D), |rho'| <= 1/(2 kappa), |rho''| <= 0.6/kappa^2, |a'/a| <= A = [(1 + e)/kappa + (1/(2
+         * kappa) + 2D) e]/(1 - e) and |a''/a| <= A2 = |B''/B| + 2 A^2, each coefficient of the profile is bounded
+         * by the same products; all decrease in kappa.
+         */
+        private double[] lagFactors(int order, double kap, double s) {
+            double e = Math.exp(-2 * kap * depth);
+            double r1 = 0.5 / kap;
+            double r2 = 0.6 / (kap * kap);
+            double dd = depth;
+            double a1 = ((1 + e) / kap + (r1 + 2 * dd) * e) / (1 - e);
+            if (order == 1) {
+                // |Pi_1| <= |a| exp(-kappa s) [2A + s + 1/(2 kappa) + 2D]/(2 kappa)
+                double r = (2 * a1 + s + r1 + 2 * dd) / (2 * kap);
+                return new double[] {r, r + 1 / (kap * kap)};
+            }
+            double b2 = ((2 * r1 / kap + r2 + 4 * dd / kap + 4 * dd * r1 + 4 * dd * dd) + (r2 + 4 * dd * r1 + 4 * dd * dd))
+                * e / (1 - e);
+            double a2 = b2 + 2 * a1 * a1;
+            double p0 = a2 + a1 / kap
+                + a2 + 2 * a1 * r1 + 4 * dd * a1 + r2 + 4 * dd * r1 + 4 * dd * dd + (a1 + r1 + 2 * dd) / kap;
+            double p1 = 2 * a1 + 1 / kap + 2 * a1 + 2 * r1 + 4 * dd + 1 / kap;
+            double p2 = 2;
+            double f = 1 / (8 * kap * kap);
+            double value = (p0 + s * (p1 + s * p2)) * f;
+            return new double[] {value, value + (p1 + 2 * p2 * s) * f / kap};
+        }
+
+        /** The least kappa of a mode outside the box m: min over the tangential axes of m_i pi / L_i. */
+        private double tailKappa(int[] m) {
+            double low = Double.POSITIVE_INFINITY;
+            for (int i = 0; i < m.length; i++) {
+                low = Math.min(low, m[i] * Math.PI / len[tangential[i]]);
+            }
+            return low;
         }
 
         /**
@@ -991,12 +1378,19 @@ public final class TensorSolver implements SpatialSolver {
          * mean over the cell from the corner p to hi (no gradient): the modes' means in closed form,
          * the tail as at the cell's nearest point to the face.
          */
-        double add(double[] p, int o, double[] hi, double budget, double[] grad, double[] bounds) {
+        double add(double[] p, int o, double[] hi, double budget, double[] grad, double[] bounds, int order) {
             double s = Math.max(0, hi == null ? distance(p, o) : side == 0 ? p[o + axis] : len[axis] - hi[axis]);
             double thickness = hi == null ? 0 : hi[axis] - p[o + axis];
             int nt = tangential.length;
             double[] r = new double[nt];
             int[] m = new int[nt];
+            if (order > 0) {
+                // size for the lag profiles' bound at the least kappa of any tail (m >= 1)
+                int[] ones = new int[nt];
+                java.util.Arrays.fill(ones, 1);
+                double[] factors = lagFactors(order, tailKappa(ones), s + thickness);
+                budget /= Math.max(factors[0], factors[1]);
+            }
             double gradientBudget = budget / lengthScale;
             Table tb = table;
             double sup = tb.sup;
@@ -1060,6 +1454,11 @@ public final class TensorSolver implements SpatialSolver {
                     throw tooClose(s);
                 }
             }
+            if (order > 0) {
+                double[] factors = lagFactors(order, tailKappa(m), s + thickness);
+                tail *= factors[0];
+                gTail *= factors[1];
+            }
             tb = table(m);
             if (tb.sup > sup) {
                 // the finer rule found a larger norm: the tails scale with it
@@ -1088,6 +1487,7 @@ public final class TensorSolver implements SpatialSolver {
                 }
             }
             int count = nt == 1 ? m[0] : m[0] * m[1];
+            double[] profile = new double[2];
             for (int c = 0; c < count; c++) {
                 int j0 = nt == 1 ? c : c / m[1];
                 int j1 = nt == 1 ? 0 : c % m[1];
@@ -1095,7 +1495,18 @@ public final class TensorSolver implements SpatialSolver {
                 double kap = tb.kappa[index];
                 double y;
                 double dy;
-                if (kap == 0) {
+                double amp = tb.amplitude[index];
+                if (order > 0) {
+                    // the profile carries its amplitude: y = Pi / a
+                    if (thickness > 0) {
+                        y = lagMean(tb, index, order, s, thickness) / amp;
+                        dy = 0;
+                    } else {
+                        lagProfile(tb, index, order, s, profile);
+                        y = profile[0] / amp;
+                        dy = profile[1] / amp;
+                    }
+                } else if (kap == 0) {
                     y = 1 + tb.beta[index] * (s + 0.5 * thickness);
                     dy = tb.beta[index];
                 } else if (thickness > 0) {
@@ -1273,7 +1684,6 @@ public final class TensorSolver implements SpatialSolver {
             for (Face f : faces) {
                 double weightMax = 0;
                 int[] index = new int[d];
-                AxisModes normal = axes[f.axis];
                 int[] tangentialSize = new int[f.tangential.length];
                 for (int i = 0; i < tangentialSize.length; i++) {
                     tangentialSize[i] = m[f.tangential[i]];
@@ -1282,42 +1692,45 @@ public final class TensorSolver implements SpatialSolver {
                 for (int cIndex = 0; cIndex < count; cIndex++) {
                     unflatten(cIndex, m, index);
                     int faceIndex = tb.index(index[f.tangential[0]], f.tangential.length == 1 ? 0 : index[f.tangential[1]]);
-                    int p = index[f.axis];
-                    double nu = normal.mu[p];
-                    double z0;
-                    double dz0;
-                    if (f.side == 0) {
-                        z0 = Math.sin(normal.phase[p]);
-                        dz0 = nu * Math.cos(normal.phase[p]);
-                    } else {
-                        double arg = nu * normal.length + normal.phase[p];
-                        z0 = Math.sin(arg);
-                        dz0 = -nu * Math.cos(arg);
-                    }
-                    double kap = tb.kappa[faceIndex];
-                    double y0;
-                    double dy0;
-                    if (kap == 0) {
-                        y0 = 1;
-                        dy0 = tb.beta[faceIndex];
-                    } else {
-                        double e = tb.rho[faceIndex] * Math.exp(-2 * kap * f.depth);
-                        y0 = 1 + e;
-                        dy0 = kap * (-1 + e);
-                    }
-                    double inner;
-                    double denominator = kap * kap + nu * nu;
-                    if (denominator == 0) {
-                        inner = f.depth; // both constant: cannot happen unless every face is insulated
-                    } else {
-                        inner = (y0 * dz0 - dy0 * z0) / denominator;
-                    }
-                    double w = tb.amplitude[faceIndex] * inner / normal.norm[p];
+                    double w = faceWeight(f, tb, faceIndex, index[f.axis]);
                     c[cIndex] -= tb.coef[faceIndex] * w;
                     weightMax = Math.max(weightMax, Math.abs(w));
                 }
                 err += tb.error * weightMax;
                 uNorm += tb.norm * tb.profileNorm;
+            }
+            double lowest = 0;
+            for (int i = 0; i < d; i++) {
+                axes[i].ensure(m[i]);
+                lowest += axes[i].mu[0] * axes[i].mu[0];
+            }
+            for (Moving mv : moving) {
+                // - theta'(0) Pi_1 / alpha - theta''(0) Pi_2 / alpha^2 for each side's term, with Pi_1 = -H_J /
+                // lambda_J and Pi_2 = H_J / lambda_J^2 exactly
+                double rate = mv.schedule().initialSlope;
+                double bend = mv.schedule().initialCurvature;
+                if (rate == 0 && bend == 0) {
+                    continue;
+                }
+                Face f = mv.shape();
+                Face.Table tb = f.table(new int[] {m[f.tangential[0]]});
+                int[] index = new int[d];
+                double weightMax = 0;
+                for (int cIndex = 0; cIndex < count; cIndex++) {
+                    unflatten(cIndex, m, index);
+                    int faceIndex = index[f.tangential[0]];
+                    double lambda = 0;
+                    for (int i = 0; i < d; i++) {
+                        lambda += axes[i].mu[index[i]] * axes[i].mu[index[i]];
+                    }
+                    double big = alpha * lambda;
+                    double w = faceWeight(f, tb, faceIndex, index[f.axis]) * (rate / big - bend / (big * big));
+                    c[cIndex] += tb.coef[faceIndex] * w;
+                    weightMax = Math.max(weightMax, Math.abs(w));
+                }
+                err += tb.error * weightMax;
+                double low = alpha * lowest;
+                uNorm += (Math.abs(rate) / low + Math.abs(bend) / (low * low)) * tb.norm * tb.profileNorm;
             }
             if (level != null && level.initialRate != 0) {
                 // + b'(0) P: P_J = 1_J / lambda_J exactly, and ||P|| <= ||1|| / lambda_min
@@ -1350,6 +1763,236 @@ public final class TensorSolver implements SpatialSolver {
                 normLower *= axes[i].normLowerBound(m[i]);
             }
             tailCoefficient = (g[1][1] + uNorm) / Math.sqrt(normLower);
+        }
+    }
+
+    /**
+     * a_m (y_m, Z_p) / ||Z_p||^2: face f's mode (table entry faceIndex, unit coefficient) projected on
+     * mode p of the normal axis, exactly by Green's identity (both satisfy the far face's condition).
+     */
+    private double faceWeight(Face f, Face.Table tb, int faceIndex, int p) {
+        AxisModes normal = axes[f.axis];
+        double nu = normal.mu[p];
+        double z0;
+        double dz0;
+        if (f.side == 0) {
+            z0 = Math.sin(normal.phase[p]);
+            dz0 = nu * Math.cos(normal.phase[p]);
+        } else {
+            double arg = nu * normal.length + normal.phase[p];
+            z0 = Math.sin(arg);
+            dz0 = -nu * Math.cos(arg);
+        }
+        double kap = tb.kappa[faceIndex];
+        double y0;
+        double dy0;
+        if (kap == 0) {
+            y0 = 1;
+            dy0 = tb.beta[faceIndex];
+        } else {
+            double e = tb.rho[faceIndex] * Math.exp(-2 * kap * f.depth);
+            y0 = 1 + e;
+            dy0 = kap * (-1 + e);
+        }
+        double denominator = kap * kap + nu * nu;
+        // both constant (every face insulated) cannot reach here
+        double inner = denominator == 0 ? f.depth : (y0 * dz0 - dy0 * z0) / denominator;
+        return tb.amplitude[faceIndex] * inner / normal.norm[p];
+    }
+
+    // ---------------------------------------------------------------- sides whose data change in time
+
+    /**
+     * The particular part of the side terms in box m at time t. With u = S + sum_k [theta H + theta' Pi_1 /
+     * alpha + theta'' Pi_2 / alpha^2] + v (Laplace Pi_1 = H, Laplace Pi_2 = Pi_1, homogeneous conditions),
+     * v_t - alpha Laplace v = -theta''' Pi_2 / alpha^2, and Pi_2's modes are H_J / lambda_J^2 exactly, so mode J
+     * gains -(H_J / Lambda_J^2) I_J(t), H_J = G_m a_m (y_m, Z_n) / ||Z_n||^2, Lambda_J = alpha lambda_J,
+     * I_J = int_0^t exp(-Lambda_J (t - s)) theta'''(s) ds. Returns a bound of the quadrature's share.
+     */
+    private double addScheduled(double t, int[] m, double[] into) {
+        double quadrature = 0;
+        int[] index = new int[d];
+        for (Moving mv : moving) {
+            SideSchedule schedule = mv.schedule();
+            if (schedule.thirdMax == 0) {
+                continue;
+            }
+            Face f = mv.shape();
+            int b = f.tangential[0];
+            Face.Table tb = f.table(new int[] {m[b]});
+            ScheduleIntegral.At integrals = schedule.integrals(t);
+            double weightSum = 0;
+            double lowest = Double.POSITIVE_INFINITY;
+            for (int c = 0; c < into.length; c++) {
+                unflatten(c, m, index);
+                double coef = tb.coef[index[b]];
+                if (coef == 0) {
+                    continue;
+                }
+                double lambda = 0;
+                for (int i = 0; i < d; i++) {
+                    lambda += axes[i].mu[index[i]] * axes[i].mu[index[i]];
+                }
+                lambda *= alpha;
+                double hj = coef * faceWeight(f, tb, index[b], index[f.axis]);
+                into[c] -= hj / (lambda * lambda) * integrals.value(lambda);
+                weightSum += Math.abs(hj) / (lambda * lambda * lambda);
+                lowest = Math.min(lowest, lambda);
+            }
+            quadrature += integrals.relativeError(lowest, schedule.thirdMax) * schedule.thirdMax * weightSum;
+        }
+        return quadrature;
+    }
+
+    /** int_0^inf (1 + u^2)^(-p/2) du for p = 4 .. 8. */
+    private static double halfLine(int p) {
+        return switch (p) {
+            case 4 -> Math.PI / 4;
+            case 5 -> 2.0 / 3;
+            case 6 -> 3 * Math.PI / 16;
+            case 7 -> 8.0 / 15;
+            default -> 5 * Math.PI / 32;
+        };
+    }
+
+    /** sum_{n >= from} (kappa^2 + (n q)^2)^(-p/2), from >= 1, p = 4 .. 8: first term plus the integral beyond. */
+    private static double normalSum(double kappa, int from, double q, int p) {
+        double x = from * q;
+        double first = Math.pow(kappa * kappa + x * x, -p / 2.0);
+        double integral = Math.pow(x, 1 - p) / ((p - 1) * q);
+        if (kappa > 0) {
+            integral = Math.min(integral, halfLine(p) * Math.pow(kappa, 1 - p) / q);
+        }
+        return first + integral;
+    }
+
+    /** sum over all n >= 0 of (kappa^2 + (n q)^2)^(-p/2), kappa > 0. */
+    private static double wholeNormalSum(double kappa, double q, int p) {
+        return Math.pow(kappa, -p) + halfLine(p) * Math.pow(kappa, 1 - p) / q;
+    }
+
+    /**
+     * int_M^inf of (x qb)^-p + c_p (x qb)^(1-p) / qa dx (the whole normal sum at kappa = x qb), times x^-extra
+     * (extra = 1 with the integration-by-parts bound of the coefficients).
+     */
+    private static double wholeNormalIntegral(int bigM, double qb, double qa, int p, int extra) {
+        int e1 = p + extra;
+        int e2 = p - 1 + extra;
+        return Math.pow(qb, -p) * Math.pow(bigM, 1 - e1) / (e1 - 1)
+            + halfLine(p) * Math.pow(qb, 1 - p) * Math.pow(bigM, 1 - e2) / ((e2 - 1) * qa);
+    }
+
+    /**
+     * The particular part's truncation outside box m for one side term: {value, each gradient component}.
+     * A mode's weight is |G_m a_m| (2 nu + 2 kappa + |beta|) / (||Z||^2 lambda) (|y(0)| <= 2, |y'(0)| <= 2
+     * kappa, |Z| <= 1, |Z'| <= nu), |I| <= C / Lambda with C the schedule's local bound of theta'''
+     * ({@link SideSchedule#localThird}) at the slowest mode outside m, so a term is at most
+     * C |G a| / (alpha^3 ||Z||^2) (2 sqrt2 lambda^(-7/2) + |beta| lambda^-4), and its gradient (mu + nu)
+     * times that, at most 4 lambda^-3 + sqrt2 |beta| lambda^(-7/2). Modes m < M are summed over n >= N by
+     * {@link #normalSum}, modes M <= m < S (S >= 4096, the shape's coefficients known with their projection
+     * error) over every n; beyond S, |G_m| <= min(||G|| / ||X||, V / mu_m) and |a_m| <= (1, 1/(k kappa),
+     * 1/(k kappa + h))/(1 - exp(-2 kappa D)) (Dirichlet, flux, convective side), the sum over m by its first
+     * term and the integral beyond.
+     */
+    private double[] scheduleTruncation(Moving mv, int[] m, double t) {
+        Face f = mv.shape();
+        int a = f.axis;
+        int b = f.tangential[0];
+        int bigM = m[b];
+        int bigN = m[a];
+        double qa = Math.PI / len[a];
+        double qb = Math.PI / len[b];
+        double edge = alpha * Math.min(Math.pow(bigN * qa, 2), Math.pow(bigM * qb, 2));
+        double third = mv.schedule().localThird(t, edge);
+        int known = Math.min(f.cap[0], Math.max(4096, 2 * bigM));
+        Face.Table tb = f.boundsTable(known);
+        known = Math.min(known, tb.size[0]);
+        double normA = axes[a].normLowerBound(Math.min(axes[a].mu.length, 4096));
+        double value = 0;
+        double gradient = 0;
+        double root2 = Math.sqrt(2);
+        for (int j = 0; j < known; j++) {
+            double w = (Math.abs(tb.coef[j]) + tb.error) * Math.abs(tb.amplitude[j]);
+            double kap = tb.kappa[j];
+            if (j < bigM) {
+                double beta = kap == 0 ? Math.abs(tb.beta[j]) : 0;
+                value += w * (2 * root2 * normalSum(kap, bigN, qa, 7) + beta * normalSum(kap, bigN, qa, 8));
+                gradient += w * (4 * normalSum(kap, bigN, qa, 6) + root2 * beta * normalSum(kap, bigN, qa, 7));
+            } else {
+                value += w * 2 * root2 * wholeNormalSum(kap, qa, 7);
+                gradient += w * 4 * wholeNormalSum(kap, qa, 6);
+            }
+        }
+        // m >= S: kappa >= S qb
+        bigM = known;
+        double kM = bigM * qb;
+        double base = switch (type[a][f.side]) {
+            case DIRICHLET -> 1;
+            case NEUMANN -> 1 / (k * kM);
+            default -> 1 / (k * kM + h[a][f.side]);
+        };
+        double aBound = base / -Math.expm1(-2 * kM * f.depth);
+        double gCs = tb.norm / Math.sqrt(tb.normLower);
+        double smooth = Double.isFinite(f.variation) ? f.variation / (qb * tb.normLower) : Double.POSITIVE_INFINITY;
+        double first = Math.min(gCs, smooth / bigM) * aBound;
+        value += first * 2 * root2 * wholeNormalSum(kM, qa, 7);
+        gradient += first * 4 * wholeNormalSum(kM, qa, 6);
+        value += aBound * 2 * root2 * Math.min(gCs * wholeNormalIntegral(bigM, qb, qa, 7, 0),
+            smooth * wholeNormalIntegral(bigM, qb, qa, 7, 1));
+        gradient += aBound * 4 * Math.min(gCs * wholeNormalIntegral(bigM, qb, qa, 6, 0),
+            smooth * wholeNormalIntegral(bigM, qb, qa, 6, 1));
+        double factor = third / (alpha * alpha * alpha * normA);
+        return new double[] {factor * value, factor * gradient};
+    }
+
+    /**
+     * The least box (per axis, at most the transient's cap) whose side terms' truncation is within
+     * {@code target} in value and {@code gradientTarget} in each gradient component at time t.
+     */
+    private int[] scheduleBox(double t, double target, double gradientTarget) {
+        int[] m = new int[d];
+        java.util.Arrays.fill(m, 16);
+        while (true) {
+            for (int i = 0; i < d; i++) {
+                axes[i].ensure(m[i] + 1);
+            }
+            boolean grewN = false;
+            boolean grewM = false;
+            for (Moving mv : moving) {
+                Face f = mv.shape();
+                double[] whole = scheduleTruncation(mv, m, t);
+                if (whole[0] * moving.size() <= target && whole[1] * moving.size() <= gradientTarget) {
+                    continue;
+                }
+                // which direction to grow: the share left by the normal axis (n >= N) against the rest
+                int[] wider = m.clone();
+                wider[f.axis] = 2 * m[f.axis];
+                axes[f.axis].ensure(wider[f.axis] + 1);
+                double[] normalGrown = scheduleTruncation(mv, wider, t);
+                double normalShare = Math.max((whole[0] - normalGrown[0]) / target,
+                    (whole[1] - normalGrown[1]) / gradientTarget);
+                double restShare = Math.max(normalGrown[0] / target, normalGrown[1] / gradientTarget);
+                if (normalShare >= restShare) {
+                    grewN = true;
+                    m[f.axis] += Math.max(4, m[f.axis] / 4);
+                } else {
+                    grewM = true;
+                    m[f.tangential[0]] += Math.max(4, m[f.tangential[0]] / 4);
+                }
+                break;
+            }
+            if (!grewN && !grewM) {
+                return m;
+            }
+            for (int i = 0; i < d; i++) {
+                if (m[i] > transientCap) {
+                    Moving first = moving.get(0);
+                    throw new OracleException(Reason.TOO_MANY_MODES, "oracle: at t = " + t + " s the change in time of"
+                        + " the side data (boundary." + SIDES[first.schedule().axis][first.schedule().side].key()
+                        + " and the other changing sides) needs more than " + transientCap + " modes along " + NAMES[i]
+                        + " to reach the tolerance; loosen the tolerance or smooth the schedule");
+                }
+            }
         }
     }
 
@@ -1412,11 +2055,48 @@ public final class TensorSolver implements SpatialSolver {
 
     @Override
     public Steady steadyPart() {
-        if (faces.isEmpty() && lagFaces == 0 && lagSeries == null) {
+        if (faces.isEmpty() && lagFaces == 0 && lagSeries == null && moving.isEmpty()) {
             return null;
         }
-        return (p, o) -> !hasLag() ? new Evaluation[] {steadyTemperature(p, o)}
-            : new Evaluation[] {steadyTemperature(p, o), lagAt(p, o)};
+        return (p, o) -> {
+            int base = hasLag() ? 2 : 1;
+            Evaluation[] parts = new Evaluation[base + 3 * moving.size()];
+            parts[0] = steadyTemperature(p, o);
+            if (hasLag()) {
+                parts[1] = lagAt(p, o);
+            }
+            for (int k = 0; k < moving.size(); k++) {
+                parts[base + 3 * k] = shapeAt(k, p, o, null, null);
+                parts[base + 3 * k + 1] = sideLagAt(k, 1, p, o, null, null);
+                parts[base + 3 * k + 2] = sideLagAt(k, 2, p, o, null, null);
+            }
+            return parts;
+        };
+    }
+
+    /** A side term's shape series H_k (harmonic, B = phi on its side) at a point, or its cell mean up to hi, or with its gradient. */
+    private Evaluation shapeAt(int k, double[] p, int o, double[] hi, double[] grad) {
+        Moving mv = moving.get(k);
+        double[] bounds = new double[2];
+        double budget = tolerance * scale / (16 * moving.size() * mv.schedule().thetaMax);
+        double value = mv.shape().add(p, o, hi, budget, grad, bounds, 0);
+        return new Evaluation(value, grad == null ? bounds[0] : bounds[1]);
+    }
+
+    /**
+     * A side term's lag of order 1 (Laplace Pi_1 = H_k) or 2 (Laplace Pi_2 = Pi_1), homogeneous conditions, by
+     * the resonant profiles; as {@link #shapeAt}. Zero when the schedule's derivative it multiplies is.
+     */
+    private Evaluation sideLagAt(int k, int order, double[] p, int o, double[] hi, double[] grad) {
+        Moving mv = moving.get(k);
+        double size = order == 1 ? mv.schedule().slopeMax / alpha : mv.schedule().curvatureMax / (alpha * alpha);
+        if (size == 0) {
+            return new Evaluation(0, 0);
+        }
+        double[] bounds = new double[2];
+        double budget = tolerance * scale / (16 * moving.size() * size);
+        double value = mv.shape().add(p, o, hi, budget, grad, bounds, order);
+        return new Evaluation(value, grad == null ? bounds[0] : bounds[1]);
     }
 
     /** Whether u carries the lag term -r(t) P (a level or uniform source that moves). */
@@ -1537,13 +2217,24 @@ public final class TensorSolver implements SpatialSolver {
         private final int[] transientOnly;
         private volatile GradientBox gradientBox;
         private double particularGradientOnValueBox;
+        // the side terms' theta(t) and theta'(t)
+        private final double[] thetaNow = new double[moving.size()];
+        private final double[] thetaSlopeNow = new double[moving.size()];
+        private final double[] thetaCurvatureNow = new double[moving.size()];
 
         TensorSlice(double t) {
             this.t = t;
             this.budget = tolerance * scale;
-            boolean moving = level != null && t > 0 && t < Double.POSITIVE_INFINITY;
-            this.levelNow = moving ? level.level(t) : 0;
-            this.slopeNow = moving ? level.rate(t) : 0;
+            boolean levelMoves = level != null && t > 0 && t < Double.POSITIVE_INFINITY;
+            this.levelNow = levelMoves ? level.level(t) : 0;
+            this.slopeNow = levelMoves ? level.rate(t) : 0;
+            if (t > 0 && t < Double.POSITIVE_INFINITY) {
+                for (int k = 0; k < thetaNow.length; k++) {
+                    thetaNow[k] = moving.get(k).schedule().theta.value(t);
+                    thetaSlopeNow[k] = moving.get(k).schedule().slope.value(t);
+                    thetaCurvatureNow[k] = moving.get(k).schedule().curvature.value(t);
+                }
+            }
             if (t == Double.POSITIVE_INFINITY || t == 0) {
                 transientOnly = null;
                 m = null;
@@ -1595,7 +2286,8 @@ public final class TensorSolver implements SpatialSolver {
                 mod = modal(needed);
             }
             // with a moving level, the particular part's box joins the transient's
-            int[] particular = moving ? level.box(budget / 8, transientCap, t) : null;
+            int[] particular = levelMoves ? level.box(budget / 8, transientCap, t) : null;
+            int[] scheduled = moving.isEmpty() ? null : scheduleBox(t, budget / 8, Double.POSITIVE_INFINITY);
             int[] transientBox = needed.clone();
             this.transientOnly = transientBox;
             m = needed.clone();
@@ -1603,6 +2295,9 @@ public final class TensorSolver implements SpatialSolver {
             for (int i = 0; i < d; i++) {
                 if (particular != null) {
                     m[i] = Math.max(m[i], particular[i]);
+                }
+                if (scheduled != null) {
+                    m[i] = Math.max(m[i], scheduled[i]);
                 }
                 count *= m[i];
             }
@@ -1665,9 +2360,22 @@ public final class TensorSolver implements SpatialSolver {
             for (int i = 0; i < d; i++) {
                 maxMu = Math.max(maxMu, axes[i].mu[m[i] - 1]);
             }
-            modalBound = tail + mod.error * decaySum + particularBound;
-            modalGradientBound = gradientTail + mod.error * decaySum * maxMu * d + particularGradientBound;
-            particularGradientOnValueBox = particularGradientBound;
+            double scheduleBound = 0;
+            double scheduleGradientBound = 0;
+            if (scheduled != null) {
+                double quadrature = addScheduled(t, m, weighted);
+                for (Moving mv : moving) {
+                    double[] truncation = scheduleTruncation(mv, m, t);
+                    scheduleBound += truncation[0];
+                    scheduleGradientBound += truncation[1];
+                }
+                scheduleBound += quadrature;
+                scheduleGradientBound += quadrature * maxMu * d;
+            }
+            modalBound = tail + mod.error * decaySum + particularBound + scheduleBound;
+            modalGradientBound = gradientTail + mod.error * decaySum * maxMu * d + particularGradientBound
+                + scheduleGradientBound;
+            particularGradientOnValueBox = particularGradientBound + scheduleGradientBound;
         }
 
         /**
@@ -1676,7 +2384,8 @@ public final class TensorSolver implements SpatialSolver {
          * the value box) and its bound; null when the value box suffices.
          */
         private GradientBox gradientBox(double limit) {
-            if (level == null || transientOnly == null || level.curvatureMax == 0 || modalGradientBound <= limit / 2) {
+            boolean levelPart = level != null && level.curvatureMax > 0;
+            if ((!levelPart && moving.isEmpty()) || transientOnly == null || modalGradientBound <= limit / 2) {
                 return null;
             }
             GradientBox box = gradientBox;
@@ -1685,17 +2394,23 @@ public final class TensorSolver implements SpatialSolver {
             }
             synchronized (this) {
                 if (gradientBox == null) {
-                    int[] wide = level.gradientBox(limit / 2, transientCap, t);
+                    int[] wide = levelPart ? level.gradientBox(limit / 2, transientCap, t) : m;
+                    int[] sides = moving.isEmpty() ? m : scheduleBox(t, budget / 8, limit / 4);
                     int[] union = new int[d];
                     int count = 1;
                     for (int i = 0; i < d; i++) {
-                        union[i] = Math.max(m[i], wide[i]);
+                        union[i] = Math.max(m[i], Math.max(wide[i], sides[i]));
                         count *= union[i];
                     }
                     double[] w = new double[count];
-                    // the transient's entries (inside transientOnly) from the value box, less its particular part
+                    // the transient's entries (inside transientOnly) from the value box, less its particular parts
                     double[] particularOnValueBox = new double[weighted.length];
-                    level.addParticular(t, m, particularOnValueBox);
+                    if (levelPart) {
+                        level.addParticular(t, m, particularOnValueBox);
+                    }
+                    if (!moving.isEmpty()) {
+                        addScheduled(t, m, particularOnValueBox);
+                    }
                     int[] index = new int[d];
                     for (int c = 0; c < weighted.length; c++) {
                         unflatten(c, m, index);
@@ -1705,14 +2420,20 @@ public final class TensorSolver implements SpatialSolver {
                         }
                         w[target] = weighted[c] - particularOnValueBox[c];
                     }
-                    double quadrature = level.addParticular(t, union, w);
+                    double quadrature = levelPart ? level.addParticular(t, union, w) : 0;
+                    double truncation = levelPart ? level.truncation(union, level.explicitCutoff(true), t)[1] : 0;
+                    if (!moving.isEmpty()) {
+                        quadrature += addScheduled(t, union, w);
+                        for (Moving mv : moving) {
+                            truncation += scheduleTruncation(mv, union, t)[1];
+                        }
+                    }
                     double maxMu = 0;
                     for (int i = 0; i < d; i++) {
                         maxMu = Math.max(maxMu, axes[i].mu[union[i] - 1]);
                     }
-                    double[] truncation = level.truncation(union, level.explicitCutoff(true), t);
                     double transientPart = modalGradientBound - particularGradientOnValueBox;
-                    gradientBox = new GradientBox(union, w, transientPart + truncation[1] + quadrature * maxMu * d);
+                    gradientBox = new GradientBox(union, w, transientPart + truncation + quadrature * maxMu * d);
                 }
                 return gradientBox;
             }
@@ -1767,6 +2488,16 @@ public final class TensorSolver implements SpatialSolver {
                     bound += Math.abs(slopeNow) * lagged.bound();
                 }
             }
+            int base = hasLag() ? 2 : 1;
+            for (int k = 0; k < thetaNow.length; k++) {
+                Evaluation shapePart = steadyParts != null ? steadyParts[base + 3 * k] : shapeAt(k, p, o, null, null);
+                Evaluation lag1 = steadyParts != null ? steadyParts[base + 3 * k + 1] : sideLagAt(k, 1, p, o, null, null);
+                Evaluation lag2 = steadyParts != null ? steadyParts[base + 3 * k + 2] : sideLagAt(k, 2, p, o, null, null);
+                value += thetaNow[k] * shapePart.value() + thetaSlopeNow[k] / alpha * lag1.value()
+                    + thetaCurvatureNow[k] / (alpha * alpha) * lag2.value();
+                bound += Math.abs(thetaNow[k]) * shapePart.bound() + Math.abs(thetaSlopeNow[k]) / alpha * lag1.bound()
+                    + Math.abs(thetaCurvatureNow[k]) / (alpha * alpha) * lag2.bound();
+            }
             if (weighted != null) {
                 double[] vb = modalSum(p, o, null);
                 value += vb[0];
@@ -1806,6 +2537,20 @@ public final class TensorSolver implements SpatialSolver {
                 for (int i = 0; i < d; i++) {
                     g[i] -= slopeNow * lagged[i];
                 }
+            }
+            for (int k = 0; k < thetaNow.length; k++) {
+                double[] gs = new double[d];
+                double[] g1 = new double[d];
+                double[] g2 = new double[d];
+                double bs = shapeAt(k, p, o, null, gs).bound();
+                double b1 = sideLagAt(k, 1, p, o, null, g1).bound();
+                double b2 = sideLagAt(k, 2, p, o, null, g2).bound();
+                double c1 = thetaSlopeNow[k] / alpha;
+                double c2 = thetaCurvatureNow[k] / (alpha * alpha);
+                for (int i = 0; i < d; i++) {
+                    g[i] += thetaNow[k] * gs[i] + c1 * g1[i] + c2 * g2[i];
+                }
+                bound += Math.abs(thetaNow[k]) * bs + Math.abs(c1) * b1 + Math.abs(c2) * b2;
             }
             if (weighted != null) {
                 GradientBox box = gradientBox(budget / (8 * lengthScale));
@@ -1855,6 +2600,15 @@ public final class TensorSolver implements SpatialSolver {
                     ? lagSeries.average(lo, hi, tolerance * scale / (8 * level.rateMax)) : lag.average(lo, hi);
                 value -= slopeNow * lagged.value();
                 bound += Math.abs(slopeNow) * lagged.bound();
+            }
+            for (int k = 0; k < thetaNow.length; k++) {
+                Evaluation shapePart = shapeAt(k, lo, 0, hi, null);
+                Evaluation lag1 = sideLagAt(k, 1, lo, 0, hi, null);
+                Evaluation lag2 = sideLagAt(k, 2, lo, 0, hi, null);
+                value += thetaNow[k] * shapePart.value() + thetaSlopeNow[k] / alpha * lag1.value()
+                    + thetaCurvatureNow[k] / (alpha * alpha) * lag2.value();
+                bound += Math.abs(thetaNow[k]) * shapePart.bound() + Math.abs(thetaSlopeNow[k]) / alpha * lag1.bound()
+                    + Math.abs(thetaCurvatureNow[k]) / (alpha * alpha) * lag2.bound();
             }
             if (weighted != null) {
                 double[] vb = modalSum(lo, 0, hi, null);
@@ -1978,7 +2732,8 @@ public final class TensorSolver implements SpatialSolver {
                     if (on && type[i][s] == DIRICHLET) {
                         double[] point = new double[d];
                         System.arraycopy(p, o, point, 0, d);
-                        double g = faceData(i, s, point) + levelNow;
+                        // the data as given, at this time (the level's or the side terms' change included)
+                        double g = t == Double.POSITIVE_INFINITY ? faceData(i, s, point) : valueAt(original[i][s], point, t);
                         return new Evaluation(g, 4 * EPS * Math.max(Math.abs(g), 1e-3 * scale));
                     }
                 }

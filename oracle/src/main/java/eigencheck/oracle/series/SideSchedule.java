@@ -1,0 +1,71 @@
+package eigencheck.oracle.series;
+
+import eigencheck.oracle.expr.Expression;
+
+/**
+ * One term theta(t) phi(s) of the change in time of a rectangle side's data, g(s, t) = g(s, 0) +
+ * sum_k theta_k(t) phi_k(s), theta_k(0) = 0: the schedule part (theta and its first three derivatives,
+ * their sizes over the horizon, and Duhamel's integral of theta'''). The shape phi is the data of a
+ * face series of its own in {@link TensorSolver}, whose two quasi-static lags use the resonant
+ * profiles. Thread-safe.
+ */
+final class SideSchedule {
+    private static final int SAMPLES = 2049;
+
+    final int axis;
+    final int side;
+    final Expression theta;
+    final Expression slope;
+    final Expression curvature;
+    final Expression third;
+    final double thetaMax;
+    final double slopeMax;
+    final double curvatureMax;
+    final double thirdMax;
+    final double initialSlope;
+    final double initialCurvature;
+    private final ScheduleIntegral duhamel;
+
+    /**
+     * @param theta the schedule over the single variable t, theta(0) = 0
+     * @param what the side's field, for messages
+     */
+    SideSchedule(int axis, int side, Expression theta, double horizon, String what) {
+        this.axis = axis;
+        this.side = side;
+        this.theta = theta;
+        this.slope = theta.derivative("t");
+        this.curvature = slope.derivative("t");
+        this.third = curvature.derivative("t");
+        double[] sizes = CommonLevel.sizes(theta, slope, curvature, horizon, what);
+        this.thetaMax = sizes[0];
+        this.slopeMax = sizes[1];
+        this.curvatureMax = sizes[2];
+        this.thirdMax = CommonLevel.sizes(slope, curvature, third, horizon, "the rate of " + what)[2];
+        this.initialSlope = slope.value(0);
+        this.initialCurvature = curvature.value(0);
+        this.duhamel = new ScheduleIntegral(third);
+    }
+
+    /** Duhamel's integrals of theta''' at time t (one per slice under construction). */
+    ScheduleIntegral.At integrals(double t) {
+        return duhamel.at(t);
+    }
+
+    /**
+     * A bound M with |int_0^t exp(-lambda (t - s)) theta'''(s) ds| <= M / lambda for every rate of at
+     * least {@code lambda}: min(max |theta'''|, 2 max_s |theta'''(s)| exp(-lambda (t - s) / 2)) over
+     * 2049 samples of [0, t] with a 5 % margin (as the common level's).
+     */
+    double localThird(double t, double lambda) {
+        if (!(t > 0) || !(lambda > 0)) {
+            return thirdMax;
+        }
+        double m = 0;
+        for (int i = 0; i < SAMPLES; i++) {
+            double s = t * i / (SAMPLES - 1);
+            m = Math.max(m, Math.abs(third.value(s)) * Math.exp(-lambda * (t - s) / 2));
+        }
+        return Math.min(thirdMax, 2 * 1.05 * m);
+    }
+}

@@ -1,0 +1,179 @@
+package eigencheck.oracle.series;
+
+import static eigencheck.oracle.testing.NumericAssertions.assertWithin;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import eigencheck.oracle.Evaluation;
+import eigencheck.oracle.Oracle;
+import eigencheck.oracle.OracleException;
+import eigencheck.oracle.expr.Expression;
+import eigencheck.oracle.problem.BoundaryCondition;
+import eigencheck.oracle.problem.Box;
+import eigencheck.oracle.problem.Manufactured;
+import eigencheck.oracle.problem.Material;
+import eigencheck.oracle.problem.Problem;
+import eigencheck.oracle.problem.Rectangle;
+import eigencheck.oracle.problem.Side;
+import eigencheck.oracle.problem.Slab;
+import java.util.EnumMap;
+import java.util.Map;
+import java.util.SplittableRandom;
+import org.junit.jupiter.api.Test;
+
+/**
+ * Rectangles whose sides change in time each on their own schedule, g(s, t) = g(s, 0) + sum theta_k(t)
+ * phi_k(s): the shape series H_k, the lag Pi_k by resonant profiles and the particular modes.
+ */
+class SideScheduleTest {
+    private static Expression xyt(String text) {
+        return Expression.parse(text, "x", "y", "t");
+    }
+
+    private static void assertAgree(Evaluation e, Evaluation reference, String what) {
+        assertTrue(Math.abs(e.value() - reference.value()) <= e.bound() + reference.bound(), what + ": " + e.value()
+            + " +- " + e.bound() + " against " + reference.value() + " +- " + reference.bound());
+    }
+
+    /**
+     * A side heated as theta(t) sin(pi x / a), the other sides at 0: u = sin(pi x / a) w(y, t) with
+     * w_t = alpha (w_yy - (pi/a)^2 w), and w = exp(-alpha (pi/a)^2 t) z, z the slab solution with
+     * z(0, t) = theta(t) exp(alpha (pi/a)^2 t) (separation of variables and an exponential substitution,
+     * common practice): a second route through the certified slab oracle.
+     */
+    @Test
+    void sineHeatedSideAgainstTheSlab() {
+        Material m = new Material(1, 2);
+        double a = 1;
+        double b = 0.5;
+        double mu2 = Math.PI * Math.PI / (a * a);
+        double alpha = m.diffusivity();
+        String theta = "(1 - exp(-4*t))";
+        Map<Side, BoundaryCondition> sides = new EnumMap<>(Side.class);
+        sides.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("0", "y", "t")));
+        sides.put(Side.XMAX, new BoundaryCondition.Dirichlet(Expression.parse("0", "y", "t")));
+        sides.put(Side.YMIN, new BoundaryCondition.Dirichlet(Expression.parse(theta + "*sin(pi*x)", "x", "t")));
+        sides.put(Side.YMAX, new BoundaryCondition.Robin(3, Expression.parse("0", "x", "t")));
+        Problem plate = new Problem(new Rectangle(a, b), m, Expression.parse("0", "x", "y"), xyt("0"), sides);
+        Map<Side, BoundaryCondition> ends = new EnumMap<>(Side.class);
+        ends.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse(theta + "*exp(" + alpha * mu2 + "*t)", "t")));
+        ends.put(Side.XMAX, new BoundaryCondition.Robin(3, Expression.parse("0", "t")));
+        Problem line = new Problem(new Slab(b), m, Expression.parse("0", "x"), Expression.parse("0", "x", "t"), ends);
+        Oracle o = Oracle.prepare(plate, 1, 1e-10);
+        Oracle z = Oracle.prepare(line, 1, 1e-12);
+        for (double t : new double[] {0.02, 0.3, 1}) {
+            double decay = Math.exp(-alpha * mu2 * t);
+            for (double[] q : new double[][] {{0.5, 0.25}, {0.2, 0.05}, {0.9, 0.45}, {0.5, 0.5 - 1e-2}, {0.3, 0}}) {
+                Evaluation zy = z.temperature(q[1], t);
+                double shape = Math.sin(Math.PI * q[0]);
+                Evaluation reference = new Evaluation(shape * decay * zy.value(), shape * decay * zy.bound());
+                Evaluation e = o.temperature(q, t);
+                assertAgree(e, reference, "u at " + q[0] + ", " + q[1] + ", t = " + t);
+                assertTrue(e.bound() <= 1e-10 * o.temperatureScale());
+            }
+        }
+    }
+
+    /**
+     * Insulated y sides: the plate is the slab in x, with x = 0 held at 10 + 5 sin 3t and x = a
+     * convecting to 10 + 2t (two schedules, the side terms' zero mode and its polynomial lag), against
+     * the slab oracle (a second route).
+     */
+    @Test
+    void twoSchedulesOnAnInsulatedPlateAgainstTheSlab() {
+        Material m = new Material(2, 5);
+        Map<Side, BoundaryCondition> sides = new EnumMap<>(Side.class);
+        sides.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("10 + 5*sin(3*t)", "y", "t")));
+        sides.put(Side.XMAX, new BoundaryCondition.Robin(7, Expression.parse("10 + 2*t", "y", "t")));
+        sides.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        sides.put(Side.YMAX, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        Problem plate = new Problem(new Rectangle(0.6, 0.3), m, Expression.parse("10 + 4*x*(0.6 - x)", "x", "y"),
+            xyt("0"), sides);
+        Map<Side, BoundaryCondition> ends = new EnumMap<>(Side.class);
+        ends.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("10 + 5*sin(3*t)", "t")));
+        ends.put(Side.XMAX, new BoundaryCondition.Robin(7, Expression.parse("10 + 2*t", "t")));
+        Problem slab = new Problem(new Slab(0.6), m, Expression.parse("10 + 4*x*(0.6 - x)", "x"),
+            Expression.parse("0", "x", "t"), ends);
+        Oracle o = Oracle.prepare(plate, 2, 1e-10);
+        Oracle line = Oracle.prepare(slab, 2, 1e-11);
+        for (double t : new double[] {0.05, 0.7, 2}) {
+            for (double[] q : new double[][] {{0.1, 0.15}, {0.3, 0.01}, {0.55, 0.29}, {0, 0.1}, {0.45, 0.2}}) {
+                Evaluation e = o.temperature(q, t);
+                assertAgree(e, line.temperature(q[0], t), "u at " + q[0] + ", " + q[1] + ", t = " + t);
+                assertTrue(e.bound() <= 1e-10 * o.temperatureScale());
+                if (q[0] > 0) {
+                    Evaluation[] g = o.gradient(q, t);
+                    Evaluation flux = line.heatFlux(q[0], t);
+                    assertAgree(g[0], new Evaluation(-flux.value() / 2, flux.bound() / 2), "du/dx at " + q[0] + ", t = " + t);
+                    assertWithin(0, g[1], g[1].bound(), "du/dy");
+                }
+            }
+        }
+    }
+
+    /**
+     * The product of two heat polynomials (Rosenbloom and Widder, Trans. AMS 92, 1959, from memory),
+     * u = (x^2 + 2 alpha t)(y^2 + 2 alpha t), solves u_t = alpha Laplace u with no source; its traces
+     * change in time along every side by two or three terms. Dirichlet, flux and convective sides with
+     * the data derived from u: values, gradients and a cell mean to 1e-10 of the scale.
+     */
+    @Test
+    void productOfHeatPolynomialsOnMixedSides() {
+        double k = 3;
+        Material material = new Material(k, 6);
+        double alpha = material.diffusivity();
+        Expression exact = xyt("(x^2 + " + 2 * alpha + "*t)*(y^2 + " + 2 * alpha + "*t)");
+        Map<Side, Manufactured.Face> kinds = new EnumMap<>(Side.class);
+        kinds.put(Side.XMIN, Manufactured.Face.neumann());
+        kinds.put(Side.XMAX, Manufactured.Face.robin(4));
+        kinds.put(Side.YMIN, Manufactured.Face.dirichlet());
+        kinds.put(Side.YMAX, Manufactured.Face.dirichlet());
+        Problem p = Manufactured.cartesian(exact, new Rectangle(0.8, 0.5), material, kinds);
+        Oracle o = Oracle.prepare(p, 1.5, 1e-10);
+        double limit = 1e-10 * o.temperatureScale();
+        SplittableRandom random = new SplittableRandom(11);
+        for (int i = 0; i < 40; i++) {
+            double x = (0.04 + 0.92 * random.nextDouble()) * 0.8;
+            double y = (0.04 + 0.92 * random.nextDouble()) * 0.5;
+            double t = 0.02 + 1.48 * random.nextDouble();
+            double[] q = {x, y};
+            assertWithin(exact.value(x, y, t), o.temperature(q, t), limit, "u at " + x + ", " + y + ", " + t);
+            Evaluation[] g = o.gradient(q, t);
+            assertWithin(exact.derivative("x").value(x, y, t), g[0], limit / 0.5, "du/dx at " + x + ", " + y + ", " + t);
+            assertWithin(exact.derivative("y").value(x, y, t), g[1], limit / 0.5, "du/dy at " + x + ", " + y + ", " + t);
+        }
+        assertWithin(exact.value(0.3, 0, 0.9), o.temperature(new double[] {0.3, 0}, 0.9), limit, "on y = 0");
+        // the cell mean of a product of quadratics in closed form
+        double c = 2 * alpha * 0.9;
+        double mx = (Math.pow(0.5, 3) - Math.pow(0.3, 3)) / (3 * 0.2) + c;
+        double my = (Math.pow(0.25, 3) - Math.pow(0.1, 3)) / (3 * 0.15) + c;
+        assertWithin(mx * my, o.cellAverage(new double[] {0.3, 0.1}, new double[] {0.5, 0.25}, 0.9), limit, "cell mean");
+    }
+
+    @Test
+    void refusesChangesThatAreNotFewProductsAndBoxesWithOwnSchedules() {
+        Map<Side, BoundaryCondition> sides = new EnumMap<>(Side.class);
+        sides.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("10 + sin(5*y*t)", "y", "t")));
+        sides.put(Side.XMAX, new BoundaryCondition.Dirichlet(Expression.parse("10", "y", "t")));
+        sides.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        sides.put(Side.YMAX, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        Problem wave = new Problem(new Rectangle(1, 1), Material.ofDiffusivity(1), Expression.parse("10", "x", "y"),
+            xyt("0"), sides);
+        OracleException e = assertThrows(OracleException.class, () -> Oracle.prepare(wave, 2, 1e-8));
+        assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
+        assertTrue(e.getMessage().startsWith("boundary.xmin: changes in time in a way that is not a sum"), e.getMessage());
+
+        Map<Side, BoundaryCondition> faces = new EnumMap<>(Side.class);
+        for (Side s : new Side[] {Side.XMIN, Side.XMAX, Side.YMIN, Side.YMAX, Side.ZMIN}) {
+            faces.put(s, new BoundaryCondition.Dirichlet(Expression.parse("0", "x", "y", "z", "t")));
+        }
+        faces.put(Side.ZMAX, new BoundaryCondition.Dirichlet(Expression.parse("t", "x", "y", "z", "t")));
+        Problem box = new Problem(new Box(1, 1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y", "z"),
+            Expression.parse("0", "x", "y", "z", "t"), faces);
+        e = assertThrows(OracleException.class, () -> Oracle.prepare(box, 1, 1e-8));
+        assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
+        assertTrue(e.getMessage().startsWith("boundary.xmin") || e.getMessage().startsWith("boundary.zmax"),
+            e.getMessage());
+    }
+}
