@@ -34,6 +34,9 @@ import org.openjdk.jmh.annotations.Warmup;
  * the source part and the transient alone); {@code risingAmbient} keeps the four convective sides and
  * lets their common ambient rise as 300 (1 - exp(-t/200)), a moving level: the lag P and the particular
  * modes join, and P's series at the cell centres nearest the sides is shared among the times too.
+ * {@code ownSchedules} gives two sides ambients of their own that change in time: x = 0 follows
+ * 300 (1 - exp(-t/200)), y = 0 follows 100 (1 - exp(-t/100)) (1 + 5 x); each side term's shape series and
+ * two lags are shared among the times, its particular modes are computed once per time.
  *
  * <pre>mvn -q -pl oracle -Pbenchmark test-compile exec:exec -Dbench.args="RectangleBenchmark"</pre>
  */
@@ -48,7 +51,7 @@ public class RectangleBenchmark {
     static final int NY = 250;
     static final int TIMES = 10;
 
-    @Param({"convecting", "insulatedSides", "risingAmbient"})
+    @Param({"convecting", "insulatedSides", "risingAmbient", "ownSchedules"})
     String sides;
 
     Problem problem;
@@ -61,14 +64,17 @@ public class RectangleBenchmark {
     static Problem problem(String sides) {
         boolean insulated = "insulatedSides".equals(sides);
         String ambient = "risingAmbient".equals(sides) ? "300*(1 - exp(-t/200))" : "0";
+        boolean own = "ownSchedules".equals(sides);
         Map<Side, BoundaryCondition> faces = new EnumMap<>(Side.class);
-        faces.put(Side.XMIN, new BoundaryCondition.Robin(40, Expression.parse(ambient, "y", "t")));
+        faces.put(Side.XMIN, new BoundaryCondition.Robin(40, Expression.parse(own ? "300*(1 - exp(-t/200))" : ambient,
+            "y", "t")));
         faces.put(Side.XMAX, new BoundaryCondition.Robin(200, Expression.parse(ambient, "y", "t")));
         if (insulated) {
             faces.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
             faces.put(Side.YMAX, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
         } else {
-            faces.put(Side.YMIN, new BoundaryCondition.Robin(60, Expression.parse(ambient, "x", "t")));
+            faces.put(Side.YMIN, new BoundaryCondition.Robin(60, Expression.parse(own
+                ? "100*(1 - exp(-t/100))*(1 + 5*x)" : ambient, "x", "t")));
             faces.put(Side.YMAX, new BoundaryCondition.Robin(100, Expression.parse(ambient, "x", "t")));
         }
         return new Problem(new Rectangle(0.2, 0.1), new Material(15, 4e6),

@@ -42,10 +42,16 @@ import java.util.Map;
  * gets the integration-by-parts bound \(|\langle G, X_j\rangle| \le V/\mu_j\), V = |G(0)| + |G(L)| +
  * 2 \(\int|G'|\) with the integral measured on a 2048-point rule: that part rests on the smoothness of
  * the data (expressions that may be non-smooth keep the Cauchy-Schwarz bound alone) and is checked by
- * tests near the sides, not proved. This version takes source and face data
- * constant in time, a source varying along one axis at most, and not every face insulated or
- * flux-driven; it refuses the rest (UNSUPPORTED), and points nearer to a face with data than its series
- * can reach (TOO_MANY_MODES), except on Dirichlet faces, where u is the data.
+ * tests near the sides, not proved.
+ *
+ * <p>Data that change in time: a level b(t) shared by every temperature and ambient, and a source change
+ * uniform in space, through {@link CommonLevel}; in a rectangle, each side's own change as at most four
+ * terms theta(t) phi(s) ({@link SideSchedule}), each adding theta H + theta' Pi_1 / alpha + theta'' Pi_2 /
+ * alpha^2 with H the face series of phi and Pi_1, Pi_2 its lags by the resonant profiles
+ * ({@link Face#lagProfile}), and particular modes driven by theta''' ({@link #addScheduled}). This version
+ * takes a source varying along one axis at most (or a sum of such terms), and not every face insulated
+ * or flux-driven; it refuses the rest (UNSUPPORTED), and points nearer to a face with data than its
+ * series can reach (TOO_MANY_MODES), except on Dirichlet faces, where u is the data.
  */
 public final class TensorSolver implements SpatialSolver {
     private static final double EPS = Math.ulp(1.0);
@@ -1889,7 +1895,7 @@ public final class TensorSolver implements SpatialSolver {
      * ({@link SideSchedule#localThird}) at the slowest mode outside m, so a term is at most
      * C |G a| / (alpha^3 ||Z||^2) (2 sqrt2 lambda^(-7/2) + |beta| lambda^-4), and its gradient (mu + nu)
      * times that, at most 4 lambda^-3 + sqrt2 |beta| lambda^(-7/2). Modes m < M are summed over n >= N by
-     * {@link #normalSum}, modes M <= m < S (S >= 4096, the shape's coefficients known with their projection
+     * {@link #normalSum}, modes M <= m < S (S >= 512, the shape's coefficients known with their projection
      * error) over every n; beyond S, |G_m| <= min(||G|| / ||X||, V / mu_m) and |a_m| <= (1, 1/(k kappa),
      * 1/(k kappa + h))/(1 - exp(-2 kappa D)) (Dirichlet, flux, convective side), the sum over m by its first
      * term and the integral beyond.
@@ -1904,7 +1910,7 @@ public final class TensorSolver implements SpatialSolver {
         double qb = Math.PI / len[b];
         double edge = alpha * Math.min(Math.pow(bigN * qa, 2), Math.pow(bigM * qb, 2));
         double third = mv.schedule().localThird(t, edge);
-        int known = Math.min(f.cap[0], Math.max(4096, 2 * bigM));
+        int known = Math.min(f.cap[0], Math.max(512, 2 * bigM));
         Face.Table tb = f.boundsTable(known);
         known = Math.min(known, tb.size[0]);
         double normA = axes[a].normLowerBound(Math.min(axes[a].mu.length, 4096));

@@ -151,6 +151,40 @@ class SideScheduleTest {
         assertWithin(mx * my, o.cellAverage(new double[] {0.3, 0.1}, new double[] {0.5, 0.25}, 0.9), limit, "cell mean");
     }
 
+    /**
+     * A flux side whose input grows, 2 + 3 sin 2t (W/m^2 into the body), on a plate with insulated y sides
+     * and x = a held at 5 t: against the slab oracle (a second route), values, gradients and cell means.
+     */
+    @Test
+    void growingFluxAgainstTheSlab() {
+        Material m = new Material(4, 3);
+        Map<Side, BoundaryCondition> sides = new EnumMap<>(Side.class);
+        sides.put(Side.XMIN, new BoundaryCondition.Neumann(Expression.parse("2 + 3*sin(2*t)", "y", "t")));
+        sides.put(Side.XMAX, new BoundaryCondition.Dirichlet(Expression.parse("5*t", "y", "t")));
+        sides.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        sides.put(Side.YMAX, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        Problem plate = new Problem(new Rectangle(0.5, 0.4), m, Expression.parse("1 - 4*x^2", "x", "y"), xyt("0"), sides);
+        Map<Side, BoundaryCondition> ends = new EnumMap<>(Side.class);
+        ends.put(Side.XMIN, new BoundaryCondition.Neumann(Expression.parse("2 + 3*sin(2*t)", "t")));
+        ends.put(Side.XMAX, new BoundaryCondition.Dirichlet(Expression.parse("5*t", "t")));
+        Problem slab = new Problem(new Slab(0.5), m, Expression.parse("1 - 4*x^2", "x"), Expression.parse("0", "x", "t"),
+            ends);
+        Oracle o = Oracle.prepare(plate, 3, 1e-10);
+        Oracle line = Oracle.prepare(slab, 3, 1e-11);
+        for (double t : new double[] {0.1, 1.3, 3}) {
+            for (double[] q : new double[][] {{0.05, 0.2}, {0.25, 0.01}, {0.45, 0.39}, {0.2, 0.3}}) {
+                Evaluation e = o.temperature(q, t);
+                assertAgree(e, line.temperature(q[0], t), "u at " + q[0] + ", " + q[1] + ", t = " + t);
+                assertTrue(e.bound() <= 1e-10 * o.temperatureScale());
+                Evaluation[] g = o.gradient(q, t);
+                Evaluation flux = line.heatFlux(q[0], t);
+                assertAgree(g[0], new Evaluation(-flux.value() / 4, flux.bound() / 4), "du/dx at " + q[0] + ", t = " + t);
+            }
+            assertAgree(o.cellAverage(new double[] {0.1, 0.05}, new double[] {0.3, 0.2}, t), line.cellAverage(0.1, 0.3, t),
+                "cell mean at t = " + t);
+        }
+    }
+
     @Test
     void refusesChangesThatAreNotFewProductsAndBoxesWithOwnSchedules() {
         Map<Side, BoundaryCondition> sides = new EnumMap<>(Side.class);
