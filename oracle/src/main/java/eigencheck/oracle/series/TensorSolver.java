@@ -290,11 +290,12 @@ public final class TensorSolver implements SpatialSolver {
             for (int s = 0; s < 2; s++) {
                 BoundaryCondition c = problem.condition(SIDES[i][s]);
                 Expression e = c.data();
-                if (!e.variables().contains("t") || e.isIndependentOf("t")) {
+                boolean followsLevel = levelExpression != null && !(c instanceof BoundaryCondition.Neumann);
+                if (!followsLevel && (!e.variables().contains("t") || e.isIndependentOf("t"))) {
                     continue;
                 }
                 try {
-                    if (levelExpression != null && !(c instanceof BoundaryCondition.Neumann)) {
+                    if (followsLevel) {
                         requireLevel(e, levelExpression, i, s, timeHorizon);
                     } else {
                         requireConstantInTime(e, "boundary." + SIDES[i][s].key(), timeHorizon);
