@@ -275,7 +275,8 @@ public final class SuiteRunner {
             } else if (f.cellData().containsKey(name)) {
                 r = ErrorNorms.ofCellData(f, f.cellData().get(name), ref);
             } else {
-                r = ErrorNorms.ofPointData(f, f.pointData().get(name), ref);
+                boolean elementNorms = c.compare().norms().contains("l2") || c.compare().norms().contains("h1semi");
+                r = ErrorNorms.ofPointData(f, f.pointData().get(name), ref, elementNorms);
             }
             for (String norm : c.compare().norms()) {
                 Double v = switch (norm) {
