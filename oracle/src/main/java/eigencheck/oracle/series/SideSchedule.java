@@ -3,7 +3,7 @@ package eigencheck.oracle.series;
 import eigencheck.oracle.expr.Expression;
 
 /**
- * One term theta(t) phi(s) of the change in time of a rectangle side's data, g(s, t) = g(s, 0) +
+ * One term theta(t) phi(s) of the change in time of a rectangle side's or box face's data, g(s, t) = g(s, 0) +
  * sum_k theta_k(t) phi_k(s), theta_k(0) = 0: the schedule part (theta and its first three derivatives,
  * their sizes over the horizon, and Duhamel's integral of theta'''). The shape phi is the data of a
  * face series of its own in {@link TensorSolver}, whose two quasi-static lags use the resonant

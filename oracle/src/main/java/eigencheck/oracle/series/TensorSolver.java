@@ -45,7 +45,7 @@ import java.util.Map;
  * tests near the sides, not proved.
  *
  * <p>Data that change in time: a level b(t) shared by every temperature and ambient, and a source change
- * uniform in space, through {@link CommonLevel}; in a rectangle, each side's own change as at most four
+ * uniform in space, through {@link CommonLevel}; otherwise each side's own change as at most four
  * terms theta(t) phi(s) ({@link SideSchedule}), each adding theta H + theta' Pi_1 / alpha + theta'' Pi_2 /
  * alpha^2 with H the face series of phi and Pi_1, Pi_2 its lags by the resonant profiles
  * ({@link Face#lagProfile}), and particular modes driven by theta''' ({@link #addScheduled}). This version
@@ -121,7 +121,7 @@ public final class TensorSolver implements SpatialSolver {
         axes = new AxisModes[d];
         Expression levelExpression = steady ? null : levelOf(problem);
         // a rectangle whose sides change in time other than by one level: each side's change as terms theta(t) phi(s)
-        boolean perSide = d == 2 && !steady && timeHorizon > 0 && needsSchedules(problem, levelExpression, timeHorizon);
+        boolean perSide = !steady && timeHorizon > 0 && needsSchedules(problem, levelExpression, timeHorizon);
         if (perSide) {
             levelExpression = null;
         }
@@ -312,46 +312,62 @@ public final class TensorSolver implements SpatialSolver {
     }
 
     /**
-     * The change of a rectangle side's data g(s, t) - g(s, 0) as at most four terms theta_k(t) phi_k(s),
-     * by cross approximation on 17 points of the side and 32 times: each term is the residual's line
-     * through its largest sample, R(s, t*) R(s*, t) / R(s*, t*), so the residual vanishes on that cross.
-     * The residual left must be below 1e-12 of the data's size at 33 points and 48 other times, or the
-     * side is refused. Returns {axis, side, theta over t, phi} per term; {largest residual, largest
-     * change} go into {@code sizes}.
+     * The change of a side's data g(s, t) - g(s, 0) as at most four terms theta_k(t) phi_k(s), by cross
+     * approximation on a grid of the side (17 points of a rectangle's side, 9 x 9 of a box's face) and 32
+     * times: each term is the residual's line through its largest sample, R(s, t*) R(s*, t) / R(s*, t*), so
+     * the residual vanishes on that cross. The residual left must be below 1e-12 of the data's size on a
+     * shifted grid (33 points, or 17 x 17) at 48 other times, or the side is refused. Returns {axis, side,
+     * theta over t, phi} per term; {largest residual, largest change} go into {@code sizes}.
      */
     private List<Object[]> changeTerms(Expression g, int axis, int side, double horizon, double[] sizes) {
         String field = "boundary." + SIDES[axis][side].key();
         String[] vars = g.variables().toArray(String[]::new);
-        int b = 1 - axis;
+        int[] tangential = new int[d - 1];
+        for (int i = 0, j = 0; i < d; i++) {
+            if (i != axis) {
+                tangential[j++] = i;
+            }
+        }
         double at = side == 0 ? 0 : len[axis];
-        Expression residual = g.linear(1, g.substitute("t", 0).over(vars), -1);
+        int per = d == 2 ? 17 : 9;
+        double[][] grid = sideGrid(tangential, per, 0);
+        Expression delta = g.linear(1, g.substitute("t", 0).over(vars), -1);
         double size = 0;
         double[] point = new double[d];
         point[axis] = at;
-        for (int i = 0; i <= 16; i++) {
-            point[b] = len[b] * i / 16;
+        for (double[] s : grid) {
+            place(point, tangential, s);
             for (int j = 0; j <= 32; j++) {
                 size = Math.max(size, Math.abs(valueAt(g, point, horizon * j / 32)));
             }
         }
         double limit = 1e-12 * Math.max(1, size);
+        // each term as a combination of the change at the pivot times (shapes) and points (schedules), so its
+        // expression stays as cheap as the data's: phi_k = sum_i c_ki delta(., t_i), theta_k = sum_i e_ki delta(s_i, .)
+        List<Expression> slices = new ArrayList<>();
+        List<Expression> lines = new ArrayList<>();
+        List<Expression> shapes = new ArrayList<>();
+        List<Expression> schedules = new ArrayList<>();
+        List<double[]> shapeMix = new ArrayList<>();
+        List<double[]> scheduleMix = new ArrayList<>();
         List<Object[]> terms = new ArrayList<>();
         double change = 0;
         for (int term = 0; term <= 4; term++) {
             double best = 0;
-            double bestS = 0;
+            double[] bestS = null;
             double bestT = 0;
-            for (int i = 0; i <= 16; i++) {
-                point[b] = len[b] * i / 16;
+            for (double[] s : grid) {
+                place(point, tangential, s);
                 for (int j = 1; j <= 32; j++) {
-                    double v = Math.abs(valueAt(residual, point, horizon * j / 32));
+                    double tj = horizon * j / 32;
+                    double v = Math.abs(residual(delta, shapes, schedules, point, tj));
                     if (term == 0) {
                         change = Math.max(change, v);
                     }
                     if (v > best) {
                         best = v;
-                        bestS = point[b];
-                        bestT = horizon * j / 32;
+                        bestS = s;
+                        bestT = tj;
                     }
                 }
             }
@@ -361,45 +377,95 @@ public final class TensorSolver implements SpatialSolver {
             if (term == 4) {
                 throw new OracleException(Reason.UNSUPPORTED, field + ": changes in time in a way that is not a sum"
                     + " of at most four terms (shape along the side) x (schedule in t) (after four, " + best + " is left"
-                    + " at " + NAMES[b] + " = " + bestS + " m and t = " + bestT + " s); this version solves rectangles"
-                    + " whose side data change in time by such terms; for other time-dependent data use a manufactured"
-                    + " solution");
+                    + " at " + java.util.Arrays.toString(bestS) + " m along it and t = " + bestT + " s); this version"
+                    + " solves rectangles and boxes whose side data change in time by such terms; for other"
+                    + " time-dependent data use a manufactured solution");
             }
-            Expression theta = residual;
+            place(point, tangential, bestS);
+            double pivot = residual(delta, shapes, schedules, point, bestT);
+            // the change along the side at t*, and in time at s*
+            slices.add(delta.substitute("t", bestT).over(vars));
+            Expression line = delta;
             for (String v : vars) {
-                if (v.equals(NAMES[axis])) {
-                    theta = theta.substitute(v, at);
-                } else if (v.equals(NAMES[b])) {
-                    theta = theta.substitute(v, bestS);
-                } else if (!v.equals("t")) {
-                    theta = theta.substitute(v, 0);
+                if (!v.equals("t")) {
+                    line = line.substitute(v, point[java.util.Arrays.asList(NAMES).indexOf(v)]);
                 }
             }
-            theta = theta.over("t");
-            point[b] = bestS;
-            double pivot = valueAt(residual, point, bestT);
-            Expression shape = residual.substitute("t", bestT);
-            shape = shape.linear(1 / pivot, shape, 0).over(vars);
-            terms.add(new Object[] {axis, side, theta, shape});
-            residual = residual.linear(1, theta.over(vars).times(shape), -1);
+            lines.add(line.over("t"));
+            // phi_k = (delta(., t*) - sum_j theta_j(t*) phi_j) / pivot; theta_k = delta(s*, .) - sum_j phi_j(s*) theta_j
+            int n = term + 1;
+            double[] c = new double[n];
+            double[] e = new double[n];
+            c[term] = 1 / pivot;
+            e[term] = 1;
+            for (int j = 0; j < term; j++) {
+                double thetaAt = schedules.get(j).value(bestT);
+                double phiAt = valueAt(shapes.get(j), point);
+                for (int i = 0; i <= j; i++) {
+                    c[i] -= thetaAt * shapeMix.get(j)[i] / pivot;
+                    e[i] -= phiAt * scheduleMix.get(j)[i];
+                }
+            }
+            shapeMix.add(c);
+            scheduleMix.add(e);
+            Expression shape = slices.get(0).linear(c[0], slices.get(0), 0);
+            Expression schedule = lines.get(0).linear(e[0], lines.get(0), 0);
+            for (int i = 1; i < n; i++) {
+                shape = shape.linear(1, slices.get(i), c[i]);
+                schedule = schedule.linear(1, lines.get(i), e[i]);
+            }
+            shapes.add(shape);
+            schedules.add(schedule);
+            terms.add(new Object[] {axis, side, schedule, shape});
         }
         double left = 0;
-        for (int i = 0; i <= 32; i++) {
-            point[b] = len[b] * (i + 0.37) / 33.37;
+        for (double[] s : sideGrid(tangential, d == 2 ? 33 : 17, 0.37)) {
+            place(point, tangential, s);
             for (int j = 1; j <= 48; j++) {
-                double v = Math.abs(valueAt(residual, point, horizon * (j - 0.41) / 47.59));
-                left = Math.max(left, v);
+                left = Math.max(left, Math.abs(residual(delta, shapes, schedules, point, horizon * (j - 0.41) / 47.59)));
             }
         }
         if (left > limit) {
             throw new OracleException(Reason.UNSUPPORTED, field + ": changes in time in a way that is not a sum of at"
                 + " most four terms (shape along the side) x (schedule in t) (" + left + " is left between the"
-                + " sampled points); this version solves rectangles whose side data change in time by such terms; for"
-                + " other time-dependent data use a manufactured solution");
+                + " sampled points); this version solves rectangles and boxes whose side data change in time by such"
+                + " terms; for other time-dependent data use a manufactured solution");
         }
         sizes[0] = left;
         sizes[1] = change;
         return terms;
+    }
+
+    /** A grid of per^(d-1) points of a side (its tangential coordinates), shifted by {@code offset} of a step. */
+    private double[][] sideGrid(int[] tangential, int per, double offset) {
+        int count = (int) Math.pow(per, tangential.length);
+        double[][] grid = new double[count][tangential.length];
+        for (int c = 0; c < count; c++) {
+            int rest = c;
+            for (int j = 0; j < tangential.length; j++) {
+                int q = rest % per;
+                rest /= per;
+                double step = offset == 0 ? q / (per - 1.0) : (q + offset) / (per + offset);
+                grid[c][j] = len[tangential[j]] * step;
+            }
+        }
+        return grid;
+    }
+
+    /** delta(p, t) - sum_j theta_j(t) phi_j(p): what the terms found so far leave of the change. */
+    private double residual(Expression delta, List<Expression> shapes, List<Expression> schedules, double[] point,
+                            double t) {
+        double r = valueAt(delta, point, t);
+        for (int j = 0; j < shapes.size(); j++) {
+            r -= schedules.get(j).value(t) * valueAt(shapes.get(j), point);
+        }
+        return r;
+    }
+
+    private static void place(double[] point, int[] tangential, double[] s) {
+        for (int j = 0; j < tangential.length; j++) {
+            point[tangential[j]] = s[j];
+        }
     }
 
     /**
@@ -497,10 +563,7 @@ public final class TensorSolver implements SpatialSolver {
                     throw new OracleException(Reason.UNSUPPORTED, "boundary." + SIDES[axis][side].key() + ": changes"
                         + " in time other than by the level b(t) of the first side that does (at "
                         + java.util.Arrays.toString(p) + " and t = " + t + " s it is " + gt + ", not " + (g0 + b.value(t))
-                        + "); this version solves boxes whose face temperatures and ambients change in time by one"
-                        + " common b(t), constant in time otherwise, with flux data and the source constant in time"
-                        + " (rectangles also take each side's own change in time); for other time-dependent data use a"
-                        + " manufactured solution");
+                        + "); the common level needs every temperature and ambient to follow it");
                 }
             }
             p[axis] = 0;
@@ -553,11 +616,10 @@ public final class TensorSolver implements SpatialSolver {
             }
         }
         if (!constant) {
-            throw new OracleException(Reason.UNSUPPORTED, field + ": depends on t; this version solves boxes whose"
-                + " flux data are constant in time and whose face temperatures and ambients are constant or move"
-                + " together by one level b(t), and rectangles whose sides change in time by terms (shape along the"
-                + " side) x (schedule); a source may change in time by the same amount everywhere (the initial"
-                + " temperature may be anything); for other time-dependent data use a manufactured solution");
+            throw new OracleException(Reason.UNSUPPORTED, field + ": depends on t; this version solves side data"
+                + " that change in time by terms (shape along the side) x (schedule) over a time horizon, and a"
+                + " source that changes by the same amount everywhere (the initial temperature may be anything); for"
+                + " other time-dependent data use a manufactured solution");
         }
         return variation;
     }
@@ -1036,20 +1098,38 @@ public final class TensorSolver implements SpatialSolver {
         private volatile Table boundsTable;
 
         /**
-         * A rectangle side's coefficients for at least {@code needed} modes, kept apart from the table the
-         * series sums (whose projection error, which grows with the rule, enters every point's bound).
+         * The side's coefficients for at least {@code needed} modes per direction, kept apart from the table
+         * the series sums (whose projection error, which grows with the rule, enters every point's bound).
          */
-        Table boundsTable(int needed) {
+        Table boundsTable(int[] needed) {
             Table t = boundsTable;
-            if (t != null && t.size[0] >= needed) {
+            if (t != null && covers(t, needed)) {
                 return t;
             }
             synchronized (this) {
-                if (boundsTable == null || boundsTable.size[0] < needed) {
-                    boundsTable = new Table(new int[] {Math.min(cap[0], needed)});
+                if (boundsTable == null || !covers(boundsTable, needed)) {
+                    int[] size = new int[needed.length];
+                    for (int i = 0; i < size.length; i++) {
+                        size[i] = Math.min(cap[i], needed[i]);
+                    }
+                    boundsTable = new Table(size);
                 }
                 return boundsTable;
             }
+        }
+
+        private boolean covers(Table t, int[] needed) {
+            for (int i = 0; i < needed.length; i++) {
+                if (t.size[i] < Math.min(cap[i], needed[i])) {
+                    return false;
+                }
+            }
+            return true;
+        }
+
+        /** The table entry of the tangential indices of a body mode index. */
+        int tableIndex(Table tb, int[] index) {
+            return tb.index(index[tangential[0]], tangential.length == 1 ? 0 : index[tangential[1]]);
         }
 
         /** Coefficients for at least {@code needed} modes per direction. */
@@ -1720,12 +1800,12 @@ public final class TensorSolver implements SpatialSolver {
                     continue;
                 }
                 Face f = mv.shape();
-                Face.Table tb = f.table(new int[] {m[f.tangential[0]]});
+                Face.Table tb = f.table(tangentialSizes(f, m));
                 int[] index = new int[d];
                 double weightMax = 0;
                 for (int cIndex = 0; cIndex < count; cIndex++) {
                     unflatten(cIndex, m, index);
-                    int faceIndex = index[f.tangential[0]];
+                    int faceIndex = f.tableIndex(tb, index);
                     double lambda = 0;
                     for (int i = 0; i < d; i++) {
                         lambda += axes[i].mu[index[i]] * axes[i].mu[index[i]];
@@ -1825,14 +1905,14 @@ public final class TensorSolver implements SpatialSolver {
                 continue;
             }
             Face f = mv.shape();
-            int b = f.tangential[0];
-            Face.Table tb = f.table(new int[] {m[b]});
+            Face.Table tb = f.table(tangentialSizes(f, m));
             ScheduleIntegral.At integrals = schedule.integrals(t);
             double weightSum = 0;
             double lowest = Double.POSITIVE_INFINITY;
             for (int c = 0; c < into.length; c++) {
                 unflatten(c, m, index);
-                double coef = tb.coef[index[b]];
+                int faceIndex = f.tableIndex(tb, index);
+                double coef = tb.coef[faceIndex];
                 if (coef == 0) {
                     continue;
                 }
@@ -1841,7 +1921,7 @@ public final class TensorSolver implements SpatialSolver {
                     lambda += axes[i].mu[index[i]] * axes[i].mu[index[i]];
                 }
                 lambda *= alpha;
-                double hj = coef * faceWeight(f, tb, index[b], index[f.axis]);
+                double hj = coef * faceWeight(f, tb, faceIndex, index[f.axis]);
                 into[c] -= hj / (lambda * lambda) * integrals.value(lambda);
                 weightSum += Math.abs(hj) / (lambda * lambda * lambda);
                 lowest = Math.min(lowest, lambda);
@@ -1851,9 +1931,19 @@ public final class TensorSolver implements SpatialSolver {
         return quadrature;
     }
 
-    /** int_0^inf (1 + u^2)^(-p/2) du for p = 4 .. 8. */
+    /** The sizes of box m along face f's tangential axes. */
+    private static int[] tangentialSizes(Face f, int[] m) {
+        int[] size = new int[f.tangential.length];
+        for (int i = 0; i < size.length; i++) {
+            size[i] = m[f.tangential[i]];
+        }
+        return size;
+    }
+
+    /** int_0^inf (1 + u^2)^(-p/2) du for p = 3 .. 8. */
     private static double halfLine(int p) {
         return switch (p) {
+            case 3 -> 1;
             case 4 -> Math.PI / 4;
             case 5 -> 2.0 / 3;
             case 6 -> 3 * Math.PI / 16;
@@ -1891,65 +1981,116 @@ public final class TensorSolver implements SpatialSolver {
 
     /**
      * The particular part's truncation outside box m for one side term: {value, each gradient component}.
-     * A mode's weight is |G_m a_m| (2 nu + 2 kappa + |beta|) / (||Z||^2 lambda) (|y(0)| <= 2, |y'(0)| <= 2
+     * A mode's weight is |G a| (2 nu + 2 kappa + |beta|) / (||Z||^2 lambda) (|y(0)| <= 2, |y'(0)| <= 2
      * kappa, |Z| <= 1, |Z'| <= nu), |I| <= C / Lambda with C the schedule's local bound of theta'''
      * ({@link SideSchedule#localThird}) at the slowest mode outside m, so a term is at most
-     * C |G a| / (alpha^3 ||Z||^2) (2 sqrt2 lambda^(-7/2) + |beta| lambda^-4), and its gradient (mu + nu)
-     * times that, at most 4 lambda^-3 + sqrt2 |beta| lambda^(-7/2). Modes m < M are summed over n >= N by
-     * {@link #normalSum}, modes M <= m < S (S >= 512, the shape's coefficients known with their projection
-     * error) over every n; beyond S, |G_m| <= min(||G|| / ||X||, V / mu_m) and |a_m| <= (1, 1/(k kappa),
-     * 1/(k kappa + h))/(1 - exp(-2 kappa D)) (Dirichlet, flux, convective side), the sum over m by its first
-     * term and the integral beyond.
+     * C |G a| / (alpha^3 ||Z||^2) (2 sqrt2 lambda^(-7/2) + |beta| lambda^-4), and its gradient (the sum of
+     * the mu's and nu, at most sqrt(d) lambda^(1/2)) times that, at most g lambda^-3 + sqrt(d) |beta|
+     * lambda^(-7/2), g = 4 (rectangle) or 2 sqrt6 (box). Tangential modes inside the box are summed over
+     * n >= N by {@link #normalSum}, those outside it up to S per axis (S >= 512 in a rectangle, 256 in a box;
+     * the shape's coefficients known with their projection error) over every n; beyond S, |G| <= ||G|| /
+     * ||X|| (and V / mu in a rectangle) and |a| <= (1, 1/(k kappa), 1/(k kappa + h))/(1 - exp(-2 kappa D))
+     * (Dirichlet, flux, convective side), the sums over the tangential indices by their first term and the
+     * integral beyond.
      */
     private double[] scheduleTruncation(Moving mv, int[] m, double t) {
         Face f = mv.shape();
         int a = f.axis;
-        int b = f.tangential[0];
-        int bigM = m[b];
+        int nt = f.tangential.length;
         int bigN = m[a];
         double qa = Math.PI / len[a];
-        double qb = Math.PI / len[b];
-        double edge = alpha * Math.min(Math.pow(bigN * qa, 2), Math.pow(bigM * qb, 2));
-        double third = mv.schedule().localThird(t, edge);
-        int known = Math.min(f.cap[0], Math.max(512, 2 * bigM));
+        double edge = Math.pow(bigN * qa, 2);
+        int[] known = new int[nt];
+        double[] q = new double[nt];
+        for (int i = 0; i < nt; i++) {
+            int b = f.tangential[i];
+            q[i] = Math.PI / len[b];
+            edge = Math.min(edge, Math.pow(m[b] * q[i], 2));
+            known[i] = Math.min(f.cap[i], Math.max(nt == 1 ? 512 : 256, 2 * m[b]));
+        }
+        double third = mv.schedule().localThird(t, alpha * edge);
         Face.Table tb = f.boundsTable(known);
-        known = Math.min(known, tb.size[0]);
+        for (int i = 0; i < nt; i++) {
+            known[i] = Math.min(known[i], tb.size[i]);
+        }
         double normA = axes[a].normLowerBound(Math.min(axes[a].mu.length, 4096));
+        double root2 = Math.sqrt(2);
+        double gradientWeight = nt == 1 ? 4 : 2 * Math.sqrt(6);
+        double rootD = Math.sqrt(d);
         double value = 0;
         double gradient = 0;
-        double root2 = Math.sqrt(2);
-        for (int j = 0; j < known; j++) {
-            double w = (Math.abs(tb.coef[j]) + tb.error) * Math.abs(tb.amplitude[j]);
-            double kap = tb.kappa[j];
-            if (j < bigM) {
-                double beta = kap == 0 ? Math.abs(tb.beta[j]) : 0;
+        int count = nt == 1 ? known[0] : known[0] * known[1];
+        for (int c = 0; c < count; c++) {
+            int j0 = nt == 1 ? c : c / known[1];
+            int j1 = nt == 1 ? 0 : c % known[1];
+            int index = tb.index(j0, j1);
+            double w = (Math.abs(tb.coef[index]) + tb.error) * Math.abs(tb.amplitude[index]);
+            double kap = tb.kappa[index];
+            boolean inside = j0 < m[f.tangential[0]] && (nt == 1 || j1 < m[f.tangential[1]]);
+            if (inside) {
+                double beta = kap == 0 ? Math.abs(tb.beta[index]) : 0;
                 value += w * (2 * root2 * normalSum(kap, bigN, qa, 7) + beta * normalSum(kap, bigN, qa, 8));
-                gradient += w * (4 * normalSum(kap, bigN, qa, 6) + root2 * beta * normalSum(kap, bigN, qa, 7));
+                gradient += w * (gradientWeight * normalSum(kap, bigN, qa, 6) + rootD * beta * normalSum(kap, bigN, qa, 7));
             } else {
                 value += w * 2 * root2 * wholeNormalSum(kap, qa, 7);
-                gradient += w * 4 * wholeNormalSum(kap, qa, 6);
+                gradient += w * gradientWeight * wholeNormalSum(kap, qa, 6);
             }
         }
-        // m >= S: kappa >= S qb
-        bigM = known;
-        double kM = bigM * qb;
-        double base = switch (type[a][f.side]) {
-            case DIRICHLET -> 1;
-            case NEUMANN -> 1 / (k * kM);
-            default -> 1 / (k * kM + h[a][f.side]);
-        };
-        double aBound = base / -Math.expm1(-2 * kM * f.depth);
         double gCs = tb.norm / Math.sqrt(tb.normLower);
-        double smooth = Double.isFinite(f.variation) ? f.variation / (qb * tb.normLower) : Double.POSITIVE_INFINITY;
-        double first = Math.min(gCs, smooth / bigM) * aBound;
-        value += first * 2 * root2 * wholeNormalSum(kM, qa, 7);
-        gradient += first * 4 * wholeNormalSum(kM, qa, 6);
-        value += aBound * 2 * root2 * Math.min(gCs * wholeNormalIntegral(bigM, qb, qa, 7, 0),
-            smooth * wholeNormalIntegral(bigM, qb, qa, 7, 1));
-        gradient += aBound * 4 * Math.min(gCs * wholeNormalIntegral(bigM, qb, qa, 6, 0),
-            smooth * wholeNormalIntegral(bigM, qb, qa, 6, 1));
+        if (nt == 1) {
+            // m >= S: kappa >= S qb
+            int bigM = known[0];
+            double qb = q[0];
+            double kM = bigM * qb;
+            double aBound = amplitudeBound(f, kM);
+            double smooth = Double.isFinite(f.variation) ? f.variation / (qb * tb.normLower) : Double.POSITIVE_INFINITY;
+            double first = Math.min(gCs, smooth / bigM) * aBound;
+            value += first * 2 * root2 * wholeNormalSum(kM, qa, 7);
+            gradient += first * gradientWeight * wholeNormalSum(kM, qa, 6);
+            value += aBound * 2 * root2 * Math.min(gCs * wholeNormalIntegral(bigM, qb, qa, 7, 0),
+                smooth * wholeNormalIntegral(bigM, qb, qa, 7, 1));
+            gradient += aBound * gradientWeight * Math.min(gCs * wholeNormalIntegral(bigM, qb, qa, 6, 0),
+                smooth * wholeNormalIntegral(bigM, qb, qa, 6, 1));
+        } else {
+            // j_i >= S_i (every other index): kappa >= j_i q_i; the sum over the other index and n of
+            // lambda^(-p/2) is at most W_p(k1) = k1^-p + c_p k1^(1-p)/q_o + (c_p/qa)(k1^(1-p) + c_(p-1) k1^(2-p)/q_o)
+            for (int i = 0; i < 2; i++) {
+                double qi = q[i];
+                double qo = q[1 - i];
+                double aBound = amplitudeBound(f, known[i] * qi);
+                value += gCs * aBound * 2 * root2 * planeTail(known[i], qi, qo, qa, 7);
+                gradient += gCs * aBound * gradientWeight * planeTail(known[i], qi, qo, qa, 6);
+            }
+        }
         double factor = third / (alpha * alpha * alpha * normA);
         return new double[] {factor * value, factor * gradient};
+    }
+
+    /** (1, 1/(k kappa), 1/(k kappa + h)) / (1 - exp(-2 kappa D)) for a Dirichlet, flux or convective side. */
+    private double amplitudeBound(Face f, double kappa) {
+        double base = switch (type[f.axis][f.side]) {
+            case DIRICHLET -> 1;
+            case NEUMANN -> 1 / (k * kappa);
+            default -> 1 / (k * kappa + h[f.axis][f.side]);
+        };
+        return base / -Math.expm1(-2 * kappa * f.depth);
+    }
+
+    /**
+     * sum over j >= from, every other tangential index and every n of (kappa^2 + nu^2)^(-p/2), kappa^2 >=
+     * (j qi)^2 + (l qo)^2: by the whole sums over n and then l, each a first term plus an integral, and
+     * sum_{j >= from} (j qi)^-r <= qi^-r (from^-r + from^(1-r)/(r - 1)).
+     */
+    private static double planeTail(int from, double qi, double qo, double qa, int p) {
+        double cp = halfLine(p);
+        double cq = halfLine(p - 1);
+        // W_p(k1) = k1^-p + (c_p/qo + c_p/qa) k1^(1-p) + (c_p c_(p-1)/(qa qo)) k1^(2-p)
+        return powerTail(from, qi, p) + (cp / qo + cp / qa) * powerTail(from, qi, p - 1)
+            + cp * cq / (qa * qo) * powerTail(from, qi, p - 2);
+    }
+
+    private static double powerTail(int from, double q, int r) {
+        return Math.pow(q, -r) * (Math.pow(from, -r) + Math.pow(from, 1 - r) / (r - 1));
     }
 
     /**
@@ -1984,7 +2125,9 @@ public final class TensorSolver implements SpatialSolver {
                     m[f.axis] += Math.max(4, m[f.axis] / 4);
                 } else {
                     grewM = true;
-                    m[f.tangential[0]] += Math.max(4, m[f.tangential[0]] / 4);
+                    for (int b : f.tangential) {
+                        m[b] += Math.max(4, m[b] / 4);
+                    }
                 }
                 break;
             }

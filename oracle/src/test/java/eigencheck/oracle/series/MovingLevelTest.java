@@ -270,29 +270,4 @@ class MovingLevelTest {
             }
         }
     }
-
-    /** A box takes one common level only; a rectangle takes its sides' own schedules ({@link SideScheduleTest}). */
-    @Test
-    void boxRefusesLevelsThatDifferAndFluxesThatChange() {
-        Domain box = new Box(1, 1, 1);
-        String[] xyzt = {"x", "y", "z", "t"};
-        Map<Side, BoundaryCondition> faces = new EnumMap<>(Side.class);
-        faces.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("10 + t", xyzt)));
-        faces.put(Side.XMAX, new BoundaryCondition.Robin(2, Expression.parse("10 + 2*t", xyzt)));
-        faces.put(Side.YMIN, new BoundaryCondition.Dirichlet(Expression.parse("10 + x + t", xyzt)));
-        faces.put(Side.YMAX, new BoundaryCondition.Neumann(Expression.parse("0", xyzt)));
-        faces.put(Side.ZMIN, new BoundaryCondition.Neumann(Expression.parse("0", xyzt)));
-        faces.put(Side.ZMAX, new BoundaryCondition.Neumann(Expression.parse("0", xyzt)));
-        Expression initial = Expression.parse("10", "x", "y", "z");
-        Expression none = Expression.parse("0", xyzt);
-        Problem differ = new Problem(box, Material.ofDiffusivity(1), initial, none, faces);
-        OracleException e = assertThrows(OracleException.class, () -> Oracle.prepare(differ, 1, 1e-8));
-        assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
-        assertTrue(e.getMessage().startsWith("boundary.xmax") && e.getMessage().contains("common b(t)"), e.getMessage());
-        faces.put(Side.XMAX, new BoundaryCondition.Robin(2, Expression.parse("10 + t", xyzt)));
-        faces.put(Side.YMAX, new BoundaryCondition.Neumann(Expression.parse("t", xyzt)));
-        Problem flux = new Problem(box, Material.ofDiffusivity(1), initial, none, faces);
-        e = assertThrows(OracleException.class, () -> Oracle.prepare(flux, 1, 1e-8));
-        assertTrue(e.getMessage().startsWith("boundary.ymax: depends on t"), e.getMessage());
-    }
 }
