@@ -239,15 +239,23 @@ final class CommonLevel {
      * with the same 5 % margin as the sizes.
      */
     private double localCurvature(double t, double lambda) {
+        return localSize(curvature, curvatureMax, t, lambda);
+    }
+
+    /**
+     * min(max, 2 M), M = max over 2049 samples s of [0, t] of |f(s)| exp(-lambda (t - s) / 2) with a 5 %
+     * margin: |int_0^t exp(-l (t - s)) f(s) ds| <= 2 M / l for every rate l >= lambda.
+     */
+    static double localSize(Expression f, double max, double t, double lambda) {
         if (!(t > 0) || !(lambda > 0)) {
-            return curvatureMax;
+            return max;
         }
         double m = 0;
         for (int i = 0; i < SAMPLES; i++) {
             double s = t * i / (SAMPLES - 1);
-            m = Math.max(m, Math.abs(curvature.value(s)) * Math.exp(-lambda * (t - s) / 2));
+            m = Math.max(m, Math.abs(f.value(s)) * Math.exp(-lambda * (t - s) / 2));
         }
-        return Math.min(curvatureMax, 2 * 1.05 * m);
+        return Math.min(max, 2 * 1.05 * m);
     }
 
     /** The explicit region's edge: about 10^6 terms while sizing boxes, about 1.7 10^7 for a final bound. */

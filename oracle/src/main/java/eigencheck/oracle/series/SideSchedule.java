@@ -10,8 +10,6 @@ import eigencheck.oracle.expr.Expression;
  * profiles. Thread-safe.
  */
 final class SideSchedule {
-    private static final int SAMPLES = 2049;
-
     final int axis;
     final int side;
     final Expression theta;
@@ -58,14 +56,6 @@ final class SideSchedule {
      * 2049 samples of [0, t] with a 5 % margin (as the common level's).
      */
     double localThird(double t, double lambda) {
-        if (!(t > 0) || !(lambda > 0)) {
-            return thirdMax;
-        }
-        double m = 0;
-        for (int i = 0; i < SAMPLES; i++) {
-            double s = t * i / (SAMPLES - 1);
-            m = Math.max(m, Math.abs(third.value(s)) * Math.exp(-lambda * (t - s) / 2));
-        }
-        return Math.min(thirdMax, 2 * 1.05 * m);
+        return CommonLevel.localSize(third, thirdMax, t, lambda);
     }
 }
