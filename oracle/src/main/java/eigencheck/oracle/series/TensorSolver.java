@@ -49,8 +49,10 @@ import java.util.Map;
  * terms theta(t) phi(s) ({@link SideSchedule}), each adding theta H + theta' Pi_1 / alpha + theta'' Pi_2 /
  * alpha^2 with H the face series of phi and Pi_1, Pi_2 its lags by the resonant profiles
  * ({@link Face#lagProfile}), and particular modes driven by theta''' ({@link #addScheduled}). This version
- * takes a source varying along one axis at most (or a sum of such terms), and not every face insulated
- * or flux-driven; it refuses the rest (UNSUPPORTED), and points nearer to a face with data than its
+ * takes a source varying along one axis at most (or a sum of such terms). With every face insulated or
+ * flux-driven the constant mode stays, the faces' constant modes take the quadratic profile (1 - s/D)^2
+ * (its uniform sink balanced by the mean's drift, {@link #driftRate}), and fluxes and source must be
+ * constant in time (the source uniform). It refuses the rest (UNSUPPORTED), and points nearer to a face with data than its
  * series can reach (TOO_MANY_MODES), except on Dirichlet faces, where u is the data.
  */
 public final class TensorSolver implements SpatialSolver {
@@ -89,6 +91,10 @@ public final class TensorSolver implements SpatialSolver {
     private final int lagFaces;
     /** P as one series with closed-form profiles (rectangle): for points P's face series cannot reach. */
     private final LagSeries lagSeries;
+    /** Every face insulated or flux-driven: the mean drifts at {@link #driftRate} (K/s), the faces' constant modes quadratic. */
+    private final boolean allFlux;
+    private final double driftRate;
+    private final double driftError;
     /** The terms theta(t) phi(s) of rectangle sides whose data change in time other than by a common level. */
     private final List<Moving> moving = new ArrayList<>();
     /** Each side's data as given (with t), for u on a Dirichlet side. */
@@ -162,13 +168,25 @@ public final class TensorSolver implements SpatialSolver {
             }
             axes[i] = new AxisModes(len[i], hk[0], hk[1]);
         }
-        if (allFlux) {
-            throw new OracleException(Reason.UNSUPPORTED, "oracle: every face is insulated or flux-driven; the mean"
-                + " then drifts with the net heat input and the steady state is fixed only up to a constant, which this"
-                + " version does not solve in 2D and 3D; give at least one face a temperature or convection");
+        this.allFlux = allFlux;
+        if (allFlux && steady) {
+            throw new OracleException(Reason.UNSUPPORTED, "oracle: every face is insulated or flux-driven, so a steady"
+                + " state exists only when the net heat input vanishes, and then only up to a constant; give the"
+                + " problem a time horizon (the mean then drifts with the net input), or a face a temperature or"
+                + " convection");
+        }
+        if (allFlux && !pending.isEmpty()) {
+            throw new OracleException(Reason.UNSUPPORTED, "boundary." + SIDES[(Integer) pending.get(0)[0]][(Integer)
+                pending.get(0)[1]].key() + ": changes in time on a body insulated or flux-driven on every face; this"
+                + " version takes such a body's fluxes constant in time; give a face a temperature or convection, or"
+                + " hold the fluxes constant");
         }
         double[] mismatch = new double[1];
         Expression heating = steady ? null : heatingOf(problem, timeHorizon, mismatch);
+        if (allFlux && heating != null) {
+            throw new OracleException(Reason.UNSUPPORTED, "source: changes in time on a body insulated or flux-driven"
+                + " on every face; this version takes such a body's source constant in time");
+        }
         if (heating == null) {
             variation += 2 * requireConstantInTime(problem.source(), "source", timeHorizon) * lengthScale * lengthScale / k;
         } else {
@@ -182,7 +200,8 @@ public final class TensorSolver implements SpatialSolver {
             : new CommonLevel(levelExpression, heating, timeHorizon, alpha, axes);
         // a uniform source that changes in time moves the temperature by up to max |sigma| T
         double heated = heating == null ? 0 : CommonLevel.sizes(heating, heating, heating, timeHorizon)[0] * timeHorizon;
-        this.scale = scaleOf(problem) + (level == null ? 0 : level.levelMax) + heated + movingSize;
+        this.scale = scaleOf(problem) + (level == null ? 0 : level.levelMax) + heated + movingSize
+            + (allFlux ? driftEstimate(problem) * timeHorizon : 0);
         Expression q = problem.source();
         // a source that is rounding noise (a manufactured source whose terms cancel) is taken as zero: its
         // sampled size, doubled, joins the bound; fitting the noise would only chase rounding
@@ -205,6 +224,12 @@ public final class TensorSolver implements SpatialSolver {
         }
         boolean zeroSource = negligible || q.isConstant() && q.value(new double[q.variables().size()]) == 0;
         int constantAxis = along.isEmpty() ? -1 : along.get(0);
+        double sourceDrift = 0;
+        if (allFlux && !zeroSource && along.isEmpty()) {
+            // every face insulated or flux-driven: a uniform source only raises the mean, Q / (rho c) per second
+            sourceDrift = valueAt(q, new double[d]) / material.volumetricHeatCapacity();
+            zeroSource = true;
+        }
         if (!zeroSource && along.isEmpty()) {
             for (int i = 0; i < d && constantAxis < 0; i++) {
                 if (!axes[i].zero) {
@@ -270,6 +295,18 @@ public final class TensorSolver implements SpatialSolver {
                 }
             }
         }
+        double rate = sourceDrift;
+        double rateError = 0;
+        if (allFlux) {
+            // the net input through the faces, each face's mean flux (its series' constant mode) over its depth
+            for (Face f : faces) {
+                Face.Table tb = f.table(new int[f.tangential.length]);
+                rate += tb.coef[0] / (f.depth * material.volumetricHeatCapacity());
+                rateError += tb.error / (f.depth * material.volumetricHeatCapacity());
+            }
+        }
+        this.driftRate = rate;
+        this.driftError = rateError + 4 * EPS * Math.abs(rate);
         for (Object[] term : pending) {
             int axis = (Integer) term[0];
             int side = (Integer) term[1];
@@ -820,6 +857,33 @@ public final class TensorSolver implements SpatialSolver {
         return Double.isNaN(c) ? 0 : c;
     }
 
+    /**
+     * A sampled size of the mean's drift on a body with every face insulated or flux-driven (for the
+     * scale): (max |Q| + sum over faces of max |q| / depth) / (rho c), in K/s.
+     */
+    private double driftEstimate(Problem problem) {
+        double total = 0;
+        double source = 0;
+        int count = gridCount();
+        double[] p = new double[d];
+        double[] faceMax = new double[2 * d];
+        for (int c = 0; c < count; c++) {
+            gridPoint(c, p);
+            source = Math.max(source, Math.abs(valueAt(problem.source(), p)));
+            for (int i = 0; i < d; i++) {
+                for (int s = 0; s < 2; s++) {
+                    double[] f = p.clone();
+                    f[i] = s == 0 ? 0 : len[i];
+                    faceMax[2 * i + s] = Math.max(faceMax[2 * i + s], Math.abs(valueAt(data[i][s], f)));
+                }
+            }
+        }
+        for (int i = 0; i < d; i++) {
+            total += (faceMax[2 * i] + faceMax[2 * i + 1]) / len[i];
+        }
+        return (source + total) / problem.material().volumetricHeatCapacity();
+    }
+
     /** The number of points of the 9^d sampling grid. */
     private int gridCount() {
         return (int) Math.pow(9, d);
@@ -1165,6 +1229,8 @@ public final class TensorSolver implements SpatialSolver {
             final double[] amplitude; // a_m
             final double[] rho;
             final double[] beta; // kappa = 0: y = 1 + beta s
+            // kappa = 0 between two flux faces (every face insulated or flux-driven): y = (1 - s/D)^2, a = D/(2k)
+            final boolean[] quadratic;
             // the resonant profile d(a y)/d(kappa^2): da/dkappa, drho/dkappa; kappa = 0: a (s^2/2 + beta s^3/6) + c1 + c2 s
             final double[] dAmplitude;
             final double[] dRho;
@@ -1194,6 +1260,7 @@ public final class TensorSolver implements SpatialSolver {
                 amplitude = new double[count];
                 rho = new double[count];
                 beta = new double[count];
+                quadratic = new boolean[count];
                 dAmplitude = new double[count];
                 dRho = new double[count];
                 d2Amplitude = new double[count];
@@ -1226,7 +1293,13 @@ public final class TensorSolver implements SpatialSolver {
                     double dy0k = 0; // d y'(0)/d kappa
                     double y0kk = 0;
                     double dy0kk = 0;
-                    if (kap == 0) {
+                    if (kap == 0 && allFlux) {
+                        // no linear profile carries a flux between two flux faces: (1 - s/D)^2 does, with the
+                        // uniform sink -k Laplace = -G/D that the mean's drift balances
+                        quadratic[c] = true;
+                        y0 = 1;
+                        dy0 = -2 / depth;
+                    } else if (kap == 0) {
                         beta[c] = switch (type[axis][far]) {
                             case DIRICHLET -> -1 / depth;
                             case NEUMANN -> 0;
@@ -1279,7 +1352,7 @@ public final class TensorSolver implements SpatialSolver {
                             default -> -k * dy0kk + h[axis][side] * y0kk;
                         };
                         d2Amplitude[c] = -bkk * a * a + 2 * bk * bk * a * a * a;
-                    } else {
+                    } else if (!quadratic[c]) {
                         // P'' = a (1 + beta s), the face's and the far face's homogeneous conditions fix c1 + c2 s
                         double p0 = type[axis][side] == DIRICHLET ? 1 : type[axis][side] == NEUMANN ? 0 : h[axis][side];
                         double q0 = type[axis][side] == DIRICHLET ? 0 : type[axis][side] == NEUMANN ? 1 : -k;
@@ -1593,6 +1666,15 @@ public final class TensorSolver implements SpatialSolver {
                         y = profile[0] / amp;
                         dy = profile[1] / amp;
                     }
+                } else if (kap == 0 && tb.quadratic[index]) {
+                    double r0 = 1 - s / depth;
+                    if (thickness > 0) {
+                        double r1 = 1 - (s + thickness) / depth;
+                        y = (r0 * r0 * r0 - r1 * r1 * r1) * depth / (3 * thickness);
+                    } else {
+                        y = r0 * r0;
+                    }
+                    dy = thickness > 0 ? 0 : -2 * r0 / depth;
                 } else if (kap == 0) {
                     y = 1 + tb.beta[index] * (s + 0.5 * thickness);
                     dy = tb.beta[index];
@@ -1875,15 +1957,16 @@ public final class TensorSolver implements SpatialSolver {
         double dy0;
         if (kap == 0) {
             y0 = 1;
-            dy0 = tb.beta[faceIndex];
+            dy0 = tb.quadratic[faceIndex] ? -2 / f.depth : tb.beta[faceIndex];
         } else {
             double e = tb.rho[faceIndex] * Math.exp(-2 * kap * f.depth);
             y0 = 1 + e;
             dy0 = kap * (-1 + e);
         }
         double denominator = kap * kap + nu * nu;
-        // both constant (every face insulated) cannot reach here
-        double inner = denominator == 0 ? f.depth : (y0 * dz0 - dy0 * z0) / denominator;
+        // both constant: the quadratic profile's integral D/3 against the normal axis' constant mode (every face
+        // insulated or flux-driven; Green's identity also holds for nu > 0, as y'' is constant and Z' vanishes)
+        double inner = denominator == 0 ? f.depth / 3 : (y0 * dz0 - dy0 * z0) / denominator;
         return tb.amplitude[faceIndex] * inner / normal.norm[p];
     }
 
@@ -2611,6 +2694,15 @@ public final class TensorSolver implements SpatialSolver {
             return modes;
         }
 
+        /** The mean's rise by time t on a body insulated or flux-driven on every face (0 otherwise). */
+        private double drift() {
+            return allFlux ? driftRate * t : 0;
+        }
+
+        private double driftBound() {
+            return allFlux ? driftError * t : 0;
+        }
+
         @Override
         public Evaluation temperature(double[] p, int o) {
             return temperature(p, o, null);
@@ -2627,8 +2719,8 @@ public final class TensorSolver implements SpatialSolver {
                 return onFace;
             }
             Evaluation part = steadyParts != null ? steadyParts[0] : steadyTemperature(p, o);
-            double value = part.value();
-            double bound = part.bound();
+            double value = part.value() + drift();
+            double bound = part.bound() + driftBound();
             if (levelNow != 0 || slopeNow != 0) {
                 value += levelNow;
                 bound += 2 * EPS * Math.abs(levelNow);
@@ -2743,8 +2835,8 @@ public final class TensorSolver implements SpatialSolver {
                 value += f.add(lo, 0, hi, budget / (4 * faces.size()), null, bounds);
                 bound += bounds[0];
             }
-            value += levelNow;
-            bound += 2 * EPS * Math.abs(levelNow);
+            value += levelNow + drift();
+            bound += 2 * EPS * Math.abs(levelNow) + driftBound();
             if (hasLag() && slopeNow != 0) {
                 Evaluation lagged = lagSeries != null
                     ? lagSeries.average(lo, hi, tolerance * scale / (8 * level.rateMax)) : lag.average(lo, hi);
