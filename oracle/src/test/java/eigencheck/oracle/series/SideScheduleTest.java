@@ -152,6 +152,37 @@ class SideScheduleTest {
     }
 
     /**
+     * A side schedule together with a uniform source switched on gradually, 400 (1 - exp(-2t)) W/m^3 (the
+     * common level's lag with a zero level, added to the side terms): an insulated-y plate against the
+     * slab oracle with the same source (a second route).
+     */
+    @Test
+    void sideScheduleWithAUniformSourceChangeAgainstTheSlab() {
+        Material m = new Material(2, 5);
+        Map<Side, BoundaryCondition> sides = new EnumMap<>(Side.class);
+        sides.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("10 + 5*sin(3*t)", "y", "t")));
+        sides.put(Side.XMAX, new BoundaryCondition.Robin(7, Expression.parse("10", "y", "t")));
+        sides.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        sides.put(Side.YMAX, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        Problem plate = new Problem(new Rectangle(0.6, 0.3), m, Expression.parse("10", "x", "y"),
+            xyt("400*(1 - exp(-2*t))"), sides);
+        Map<Side, BoundaryCondition> ends = new EnumMap<>(Side.class);
+        ends.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("10 + 5*sin(3*t)", "t")));
+        ends.put(Side.XMAX, new BoundaryCondition.Robin(7, Expression.parse("10", "t")));
+        Problem slab = new Problem(new Slab(0.6), m, Expression.parse("10", "x"),
+            Expression.parse("400*(1 - exp(-2*t))", "x", "t"), ends);
+        Oracle o = Oracle.prepare(plate, 2, 1e-10);
+        Oracle line = Oracle.prepare(slab, 2, 1e-11);
+        for (double t : new double[] {0.05, 0.7, 2}) {
+            for (double[] q : new double[][] {{0.1, 0.15}, {0.3, 0.01}, {0.55, 0.29}}) {
+                Evaluation e = o.temperature(q, t);
+                assertAgree(e, line.temperature(q[0], t), "u at " + q[0] + ", " + q[1] + ", t = " + t);
+                assertTrue(e.bound() <= 1e-10 * o.temperatureScale());
+            }
+        }
+    }
+
+    /**
      * A flux side whose input grows, 2 + 3 sin 2t (W/m^2 into the body), on a plate with insulated y sides
      * and x = a held at 5 t: against the slab oracle (a second route), values, gradients and cell means.
      */
