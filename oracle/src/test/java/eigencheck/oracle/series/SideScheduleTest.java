@@ -82,35 +82,63 @@ class SideScheduleTest {
      */
     @Test
     void twoSchedulesOnAnInsulatedPlateAgainstTheSlab() {
-        Material m = new Material(2, 5);
+        Pair pair = insulatedY(new Material(2, 5), 0.6, 0.3, "10 + 4*x*(0.6 - x)", "0", BoundaryCondition.Dirichlet::new,
+            "10 + 5*sin(3*t)", data -> new BoundaryCondition.Robin(7, data), "10 + 2*t");
+        assertPlateMatchesSlab(pair, 2, new double[] {0.05, 0.7, 2},
+            new double[][] {{0.1, 0.15}, {0.3, 0.01}, {0.55, 0.29}, {0, 0.1}, {0.45, 0.2}});
+    }
+
+    /** A condition built from its data (Dirichlet, Neumann or Robin with its h). */
+    private interface Condition {
+        BoundaryCondition of(Expression data);
+    }
+
+    /** A plate insulated on its y sides and the slab along x with the same data: one problem, two routes. */
+    private record Pair(Problem plate, Problem slab) {
+    }
+
+    private static Pair insulatedY(Material m, double a, double b, String initial, String source, Condition left,
+                                   String leftData, Condition right, String rightData) {
         Map<Side, BoundaryCondition> sides = new EnumMap<>(Side.class);
-        sides.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("10 + 5*sin(3*t)", "y", "t")));
-        sides.put(Side.XMAX, new BoundaryCondition.Robin(7, Expression.parse("10 + 2*t", "y", "t")));
+        sides.put(Side.XMIN, left.of(Expression.parse(leftData, "y", "t")));
+        sides.put(Side.XMAX, right.of(Expression.parse(rightData, "y", "t")));
         sides.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
         sides.put(Side.YMAX, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
-        Problem plate = new Problem(new Rectangle(0.6, 0.3), m, Expression.parse("10 + 4*x*(0.6 - x)", "x", "y"),
-            xyt("0"), sides);
+        Problem plate = new Problem(new Rectangle(a, b), m, Expression.parse(initial, "x", "y"), xyt(source), sides);
         Map<Side, BoundaryCondition> ends = new EnumMap<>(Side.class);
-        ends.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("10 + 5*sin(3*t)", "t")));
-        ends.put(Side.XMAX, new BoundaryCondition.Robin(7, Expression.parse("10 + 2*t", "t")));
-        Problem slab = new Problem(new Slab(0.6), m, Expression.parse("10 + 4*x*(0.6 - x)", "x"),
-            Expression.parse("0", "x", "t"), ends);
-        Oracle o = Oracle.prepare(plate, 2, 1e-10);
-        Oracle line = Oracle.prepare(slab, 2, 1e-11);
-        for (double t : new double[] {0.05, 0.7, 2}) {
-            for (double[] q : new double[][] {{0.1, 0.15}, {0.3, 0.01}, {0.55, 0.29}, {0, 0.1}, {0.45, 0.2}}) {
+        ends.put(Side.XMIN, left.of(Expression.parse(leftData, "t")));
+        ends.put(Side.XMAX, right.of(Expression.parse(rightData, "t")));
+        Problem slab = new Problem(new Slab(a), m, Expression.parse(initial, "x"), Expression.parse(source, "x", "t"), ends);
+        return new Pair(plate, slab);
+    }
+
+    /**
+     * The plate against the slab at the points and times: values within both bounds and 1e-10 of the scale,
+     * gradients (du/dx against the slab's flux, du/dy against 0) off x = 0, and one cell mean per time.
+     */
+    private static void assertPlateMatchesSlab(Pair pair, double horizon, double[] times, double[][] points) {
+        Oracle o = Oracle.prepare(pair.plate(), horizon, 1e-10);
+        Oracle line = Oracle.prepare(pair.slab(), horizon, 1e-11);
+        double k = pair.plate().material().conductivity();
+        double a = ((Rectangle) pair.plate().domain()).lengthX();
+        double b = ((Rectangle) pair.plate().domain()).lengthY();
+        for (double t : times) {
+            for (double[] q : points) {
                 Evaluation e = o.temperature(q, t);
                 assertAgree(e, line.temperature(q[0], t), "u at " + q[0] + ", " + q[1] + ", t = " + t);
                 assertTrue(e.bound() <= 1e-10 * o.temperatureScale());
                 if (q[0] > 0) {
                     Evaluation[] g = o.gradient(q, t);
                     Evaluation flux = line.heatFlux(q[0], t);
-                    assertAgree(g[0], new Evaluation(-flux.value() / 2, flux.bound() / 2), "du/dx at " + q[0] + ", t = " + t);
+                    assertAgree(g[0], new Evaluation(-flux.value() / k, flux.bound() / k), "du/dx at " + q[0] + ", t = " + t);
                     assertWithin(0, g[1], g[1].bound(), "du/dy");
                 }
             }
+            assertAgree(o.cellAverage(new double[] {0.2 * a, 0.1 * b}, new double[] {0.6 * a, 0.5 * b}, t),
+                line.cellAverage(0.2 * a, 0.6 * a, t), "cell mean at t = " + t);
         }
     }
+
 
     /**
      * The product of two heat polynomials (Rosenbloom and Widder, Trans. AMS 92, 1959, from memory),
@@ -158,28 +186,9 @@ class SideScheduleTest {
      */
     @Test
     void sideScheduleWithAUniformSourceChangeAgainstTheSlab() {
-        Material m = new Material(2, 5);
-        Map<Side, BoundaryCondition> sides = new EnumMap<>(Side.class);
-        sides.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("10 + 5*sin(3*t)", "y", "t")));
-        sides.put(Side.XMAX, new BoundaryCondition.Robin(7, Expression.parse("10", "y", "t")));
-        sides.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
-        sides.put(Side.YMAX, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
-        Problem plate = new Problem(new Rectangle(0.6, 0.3), m, Expression.parse("10", "x", "y"),
-            xyt("400*(1 - exp(-2*t))"), sides);
-        Map<Side, BoundaryCondition> ends = new EnumMap<>(Side.class);
-        ends.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("10 + 5*sin(3*t)", "t")));
-        ends.put(Side.XMAX, new BoundaryCondition.Robin(7, Expression.parse("10", "t")));
-        Problem slab = new Problem(new Slab(0.6), m, Expression.parse("10", "x"),
-            Expression.parse("400*(1 - exp(-2*t))", "x", "t"), ends);
-        Oracle o = Oracle.prepare(plate, 2, 1e-10);
-        Oracle line = Oracle.prepare(slab, 2, 1e-11);
-        for (double t : new double[] {0.05, 0.7, 2}) {
-            for (double[] q : new double[][] {{0.1, 0.15}, {0.3, 0.01}, {0.55, 0.29}}) {
-                Evaluation e = o.temperature(q, t);
-                assertAgree(e, line.temperature(q[0], t), "u at " + q[0] + ", " + q[1] + ", t = " + t);
-                assertTrue(e.bound() <= 1e-10 * o.temperatureScale());
-            }
-        }
+        Pair pair = insulatedY(new Material(2, 5), 0.6, 0.3, "10", "400*(1 - exp(-2*t))", BoundaryCondition.Dirichlet::new,
+            "10 + 5*sin(3*t)", data -> new BoundaryCondition.Robin(7, data), "10");
+        assertPlateMatchesSlab(pair, 2, new double[] {0.05, 0.7, 2}, new double[][] {{0.1, 0.15}, {0.3, 0.01}, {0.55, 0.29}});
     }
 
     /**
@@ -188,32 +197,10 @@ class SideScheduleTest {
      */
     @Test
     void growingFluxAgainstTheSlab() {
-        Material m = new Material(4, 3);
-        Map<Side, BoundaryCondition> sides = new EnumMap<>(Side.class);
-        sides.put(Side.XMIN, new BoundaryCondition.Neumann(Expression.parse("2 + 3*sin(2*t)", "y", "t")));
-        sides.put(Side.XMAX, new BoundaryCondition.Dirichlet(Expression.parse("5*t", "y", "t")));
-        sides.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
-        sides.put(Side.YMAX, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
-        Problem plate = new Problem(new Rectangle(0.5, 0.4), m, Expression.parse("1 - 4*x^2", "x", "y"), xyt("0"), sides);
-        Map<Side, BoundaryCondition> ends = new EnumMap<>(Side.class);
-        ends.put(Side.XMIN, new BoundaryCondition.Neumann(Expression.parse("2 + 3*sin(2*t)", "t")));
-        ends.put(Side.XMAX, new BoundaryCondition.Dirichlet(Expression.parse("5*t", "t")));
-        Problem slab = new Problem(new Slab(0.5), m, Expression.parse("1 - 4*x^2", "x"), Expression.parse("0", "x", "t"),
-            ends);
-        Oracle o = Oracle.prepare(plate, 3, 1e-10);
-        Oracle line = Oracle.prepare(slab, 3, 1e-11);
-        for (double t : new double[] {0.1, 1.3, 3}) {
-            for (double[] q : new double[][] {{0.05, 0.2}, {0.25, 0.01}, {0.45, 0.39}, {0.2, 0.3}}) {
-                Evaluation e = o.temperature(q, t);
-                assertAgree(e, line.temperature(q[0], t), "u at " + q[0] + ", " + q[1] + ", t = " + t);
-                assertTrue(e.bound() <= 1e-10 * o.temperatureScale());
-                Evaluation[] g = o.gradient(q, t);
-                Evaluation flux = line.heatFlux(q[0], t);
-                assertAgree(g[0], new Evaluation(-flux.value() / 4, flux.bound() / 4), "du/dx at " + q[0] + ", t = " + t);
-            }
-            assertAgree(o.cellAverage(new double[] {0.1, 0.05}, new double[] {0.3, 0.2}, t), line.cellAverage(0.1, 0.3, t),
-                "cell mean at t = " + t);
-        }
+        Pair pair = insulatedY(new Material(4, 3), 0.5, 0.4, "1 - 4*x^2", "0", BoundaryCondition.Neumann::new,
+            "2 + 3*sin(2*t)", BoundaryCondition.Dirichlet::new, "5*t");
+        assertPlateMatchesSlab(pair, 3, new double[] {0.1, 1.3, 3},
+            new double[][] {{0.05, 0.2}, {0.25, 0.01}, {0.45, 0.39}, {0.2, 0.3}});
     }
 
     /**
