@@ -51,8 +51,9 @@ import java.util.Map;
  * ({@link Face#lagProfile}), and particular modes driven by theta''' ({@link #addScheduled}). This version
  * takes a source varying along one axis at most (or a sum of such terms). With every face insulated or
  * flux-driven the constant mode stays, the faces' constant modes take the quadratic profile (1 - s/D)^2
- * (its uniform sink balanced by the mean's drift, {@link #driftRate}), and fluxes and source must be
- * constant in time (the source uniform). It refuses the rest (UNSUPPORTED), and points nearer to a face with data than its
+ * (its uniform sink balanced by the mean's drift, {@link #driftRate}); side terms there use their
+ * shape series less its mean and lags of mean zero ({@link #zeroMeanLag}), and the source must be
+ * uniform and constant in time. It refuses the rest (UNSUPPORTED), and points nearer to a face with data than its
  * series can reach (TOO_MANY_MODES), except on Dirichlet faces, where u is the data.
  */
 public final class TensorSolver implements SpatialSolver {
@@ -102,7 +103,7 @@ public final class TensorSolver implements SpatialSolver {
     private Modal modal;
 
     /** One term of a side's change in time: its schedule and the face series of its shape. */
-    private record Moving(SideSchedule schedule, Face shape) {
+    private record Moving(SideSchedule schedule, Face shape, double mean, double input) {
     }
 
     public TensorSolver(Problem problem, double timeHorizon, double tolerance) {
@@ -174,12 +175,6 @@ public final class TensorSolver implements SpatialSolver {
                 + " state exists only when the net heat input vanishes, and then only up to a constant; give the"
                 + " problem a time horizon (the mean then drifts with the net input), or a face a temperature or"
                 + " convection");
-        }
-        if (allFlux && !pending.isEmpty()) {
-            throw new OracleException(Reason.UNSUPPORTED, "boundary." + SIDES[(Integer) pending.get(0)[0]][(Integer)
-                pending.get(0)[1]].key() + ": changes in time on a body insulated or flux-driven on every face; this"
-                + " version takes such a body's fluxes constant in time; give a face a temperature or convection, or"
-                + " hold the fluxes constant");
         }
         double[] mismatch = new double[1];
         Expression heating = steady ? null : heatingOf(problem, timeHorizon, mismatch);
@@ -312,8 +307,17 @@ public final class TensorSolver implements SpatialSolver {
             int side = (Integer) term[1];
             Face f = new Face(axis, side, (Expression) term[3]);
             if (f.present) {
+                // every face a flux face: the shape series' mean G_0 a / 3 is taken out (the lags need a mean of
+                // zero), and its input G_0 / D raises the mean at the rate theta(t) G_0 / (D rho c)
+                double mean = 0;
+                double input = 0;
+                if (allFlux) {
+                    Face.Table tb = f.table(new int[f.tangential.length]);
+                    mean = tb.coef[0] * tb.amplitude[0] / 3;
+                    input = tb.coef[0] / (f.depth * material.volumetricHeatCapacity());
+                }
                 moving.add(new Moving(new SideSchedule(axis, side, (Expression) term[2], timeHorizon,
-                    "the schedule of boundary." + SIDES[axis][side].key()), f));
+                    "the schedule of boundary." + SIDES[axis][side].key()), f, mean, input));
             }
         }
     }
@@ -1231,6 +1235,9 @@ public final class TensorSolver implements SpatialSolver {
             final double[] beta; // kappa = 0: y = 1 + beta s
             // kappa = 0 between two flux faces (every face insulated or flux-driven): y = (1 - s/D)^2, a = D/(2k)
             final boolean[] quadratic;
+            // its lags of mean zero, as power series in s (order 1 and 2); null when no entry is quadratic
+            double[] quadraticLag1;
+            double[] quadraticLag2;
             // the resonant profile d(a y)/d(kappa^2): da/dkappa, drho/dkappa; kappa = 0: a (s^2/2 + beta s^3/6) + c1 + c2 s
             final double[] dAmplitude;
             final double[] dRho;
@@ -1299,6 +1306,10 @@ public final class TensorSolver implements SpatialSolver {
                         quadratic[c] = true;
                         y0 = 1;
                         dy0 = -2 / depth;
+                        double a0 = k * 2 / depth;
+                        double[] profile = {1 / a0, -2 / (a0 * depth), 1 / (a0 * depth * depth)};
+                        quadraticLag1 = zeroMeanLag(profile, depth);
+                        quadraticLag2 = zeroMeanLag(quadraticLag1, depth);
                     } else if (kap == 0) {
                         beta[c] = switch (type[axis][far]) {
                             case DIRICHLET -> -1 / depth;
@@ -1414,6 +1425,20 @@ public final class TensorSolver implements SpatialSolver {
         void lagProfile(Table tb, int index, int order, double s, double[] out) {
             double kap = tb.kappa[index];
             double a = tb.amplitude[index];
+            if (kap == 0 && tb.quadratic[index]) {
+                double[] poly = order == 1 ? tb.quadraticLag1 : tb.quadraticLag2;
+                double v = 0;
+                double dv = 0;
+                for (int i = poly.length - 1; i >= 0; i--) {
+                    v = v * s + poly[i];
+                    if (i > 0) {
+                        dv = dv * s + i * poly[i];
+                    }
+                }
+                out[0] = v;
+                out[1] = dv;
+                return;
+            }
             if (kap == 0) {
                 double beta = tb.beta[index];
                 double s2 = s * s;
@@ -1868,10 +1893,16 @@ public final class TensorSolver implements SpatialSolver {
                 err += tb.error * weightMax;
                 uNorm += tb.norm * tb.profileNorm;
             }
+            // the least eigenvalue the lags' modes have (the constant mode of a body with flux faces only excluded)
             double lowest = 0;
+            double firstUp = Double.POSITIVE_INFINITY;
             for (int i = 0; i < d; i++) {
-                axes[i].ensure(m[i]);
+                axes[i].ensure(Math.max(2, m[i]));
                 lowest += axes[i].mu[0] * axes[i].mu[0];
+                firstUp = Math.min(firstUp, axes[i].mu[1] * axes[i].mu[1]);
+            }
+            if (lowest == 0) {
+                lowest = firstUp;
             }
             for (Moving mv : moving) {
                 // - theta'(0) Pi_1 / alpha - theta''(0) Pi_2 / alpha^2 for each side's term, with Pi_1 = -H_J /
@@ -1891,6 +1922,9 @@ public final class TensorSolver implements SpatialSolver {
                     double lambda = 0;
                     for (int i = 0; i < d; i++) {
                         lambda += axes[i].mu[index[i]] * axes[i].mu[index[i]];
+                    }
+                    if (lambda == 0) {
+                        continue; // the constant mode: the lags have mean zero
                     }
                     double big = alpha * lambda;
                     double w = faceWeight(f, tb, faceIndex, index[f.axis]) * (rate / big - bend / (big * big));
@@ -2003,6 +2037,9 @@ public final class TensorSolver implements SpatialSolver {
                 for (int i = 0; i < d; i++) {
                     lambda += axes[i].mu[index[i]] * axes[i].mu[index[i]];
                 }
+                if (lambda == 0) {
+                    continue; // the constant mode: Pi_2 has mean zero
+                }
                 lambda *= alpha;
                 double hj = coef * faceWeight(f, tb, faceIndex, index[f.axis]);
                 into[c] -= hj / (lambda * lambda) * integrals.value(lambda);
@@ -2012,6 +2049,26 @@ public final class TensorSolver implements SpatialSolver {
             quadrature += integrals.relativeError(lowest, schedule.thirdMax) * schedule.thirdMax * weightSum;
         }
         return quadrature;
+    }
+
+    /**
+     * The power series in s of q with q'' = p - mean(p) on [0, D], q'(0) = 0 (so q'(D) = 0 too) and mean(q) =
+     * 0: the lag of a flux face's constant mode when every face is a flux face, exact.
+     */
+    static double[] zeroMeanLag(double[] p, double depth) {
+        double mean = 0;
+        for (int i = 0; i < p.length; i++) {
+            mean += p[i] * Math.pow(depth, i) / (i + 1);
+        }
+        double[] q = new double[p.length + 2];
+        double qMean = 0;
+        for (int i = 0; i < p.length; i++) {
+            double r = i == 0 ? p[0] - mean : p[i];
+            q[i + 2] = r / ((i + 1) * (i + 2));
+            qMean += q[i + 2] * Math.pow(depth, i + 2) / (i + 3);
+        }
+        q[0] = -qMean;
+        return q;
     }
 
     /** The sizes of box m along face f's tangential axes. */
@@ -2111,7 +2168,7 @@ public final class TensorSolver implements SpatialSolver {
             double kap = tb.kappa[index];
             boolean inside = j0 < m[f.tangential[0]] && (nt == 1 || j1 < m[f.tangential[1]]);
             if (inside) {
-                double beta = kap == 0 ? Math.abs(tb.beta[index]) : 0;
+                double beta = kap > 0 ? 0 : tb.quadratic[index] ? 2 / f.depth : Math.abs(tb.beta[index]);
                 value += w * (2 * root2 * normalSum(kap, bigN, qa, 7) + beta * normalSum(kap, bigN, qa, 8));
                 gradient += w * (gradientWeight * normalSum(kap, bigN, qa, 6) + rootD * beta * normalSum(kap, bigN, qa, 7));
             } else {
@@ -2307,13 +2364,16 @@ public final class TensorSolver implements SpatialSolver {
         };
     }
 
-    /** A side term's shape series H_k (harmonic, B = phi on its side) at a point, or its cell mean up to hi, or with its gradient. */
+    /**
+     * A side term's shape series H_k (harmonic, B = phi on its side; less its mean when every face is a flux
+     * face) at a point, or its cell mean up to hi, or with its gradient.
+     */
     private Evaluation shapeAt(int k, double[] p, int o, double[] hi, double[] grad) {
         Moving mv = moving.get(k);
         double[] bounds = new double[2];
         double budget = tolerance * scale / (16 * moving.size() * mv.schedule().thetaMax);
-        double value = mv.shape().add(p, o, hi, budget, grad, bounds, 0);
-        return new Evaluation(value, grad == null ? bounds[0] : bounds[1]);
+        double value = mv.shape().add(p, o, hi, budget, grad, bounds, 0) - mv.mean();
+        return new Evaluation(value, grad == null ? bounds[0] + 2 * EPS * Math.abs(mv.mean()) : bounds[1]);
     }
 
     /**
@@ -2454,6 +2514,8 @@ public final class TensorSolver implements SpatialSolver {
         private final double[] thetaNow = new double[moving.size()];
         private final double[] thetaSlopeNow = new double[moving.size()];
         private final double[] thetaCurvatureNow = new double[moving.size()];
+        private double scheduledDrift;
+        private double scheduledDriftBound;
 
         TensorSlice(double t) {
             this.t = t;
@@ -2466,6 +2528,13 @@ public final class TensorSolver implements SpatialSolver {
                     thetaNow[k] = moving.get(k).schedule().theta.value(t);
                     thetaSlopeNow[k] = moving.get(k).schedule().slope.value(t);
                     thetaCurvatureNow[k] = moving.get(k).schedule().curvature.value(t);
+                    if (allFlux) {
+                        // a flux face's term adds theta(t) G_0 / (D rho c) to the mean's rate
+                        double[] integral = moving.get(k).schedule().integral(t);
+                        double input = moving.get(k).input();
+                        scheduledDrift += input * integral[0];
+                        scheduledDriftBound += Math.abs(input) * integral[1] + 4 * EPS * Math.abs(input * integral[0]);
+                    }
                 }
             }
             if (t == Double.POSITIVE_INFINITY || t == 0) {
@@ -2696,11 +2765,11 @@ public final class TensorSolver implements SpatialSolver {
 
         /** The mean's rise by time t on a body insulated or flux-driven on every face (0 otherwise). */
         private double drift() {
-            return allFlux ? driftRate * t : 0;
+            return allFlux ? driftRate * t + scheduledDrift : 0;
         }
 
         private double driftBound() {
-            return allFlux ? driftError * t : 0;
+            return allFlux ? driftError * t + scheduledDriftBound : 0;
         }
 
         @Override

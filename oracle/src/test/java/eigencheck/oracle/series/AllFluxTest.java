@@ -140,8 +140,39 @@ class AllFluxTest {
         }
     }
 
+    /**
+     * u = cos(pi x / a) exp(-alpha pi^2 t / a^2) (y^2 + 2 alpha t), a product of two one-dimensional heat
+     * solutions (common practice), on a flux-driven plate: the flux into y = b, 2 k b cos(pi x / a)
+     * exp(-alpha pi^2 t / a^2), changes in time with a shape along the side (the side terms' lags for modes
+     * with kappa > 0 between two flux faces). Values to 1e-10 of the scale.
+     */
     @Test
-    void refusesTheSteadyStateAndChangingFluxes() {
+    void decayingShapedFluxAgainstAProductSolution() {
+        double k = 2;
+        Material material = new Material(k, 4);
+        double alpha = material.diffusivity();
+        double a = 0.8;
+        double decay = alpha * Math.PI * Math.PI / (a * a);
+        Expression exact = xyt("cos(pi*x/" + a + ")*exp(-" + decay + "*t)*(y^2 + " + 2 * alpha + "*t)");
+        Map<Side, Manufactured.Face> kinds = new EnumMap<>(Side.class);
+        for (Side s : new Side[] {Side.XMIN, Side.XMAX, Side.YMIN, Side.YMAX}) {
+            kinds.put(s, Manufactured.Face.neumann());
+        }
+        Problem p = Manufactured.cartesian(exact, new Rectangle(a, 0.5), material, kinds);
+        Oracle o = Oracle.prepare(p, 1, 1e-10);
+        double limit = 1e-10 * o.temperatureScale();
+        SplittableRandom random = new SplittableRandom(31);
+        for (int i = 0; i < 12; i++) {
+            double x = (0.04 + 0.92 * random.nextDouble()) * a;
+            double y = (0.04 + 0.92 * random.nextDouble()) * 0.5;
+            double t = 0.02 + 0.98 * random.nextDouble();
+            assertWithin(exact.value(x, y, t), o.temperature(new double[] {x, y}, t), limit, "u at " + x + ", " + y
+                + ", " + t);
+        }
+    }
+
+    @Test
+    void refusesTheSteadyStateAndAChangingSource() {
         Map<Side, BoundaryCondition> sides = new EnumMap<>(Side.class);
         sides.put(Side.XMIN, new BoundaryCondition.Neumann(Expression.parse("5", "y", "t")));
         sides.put(Side.XMAX, new BoundaryCondition.Neumann(Expression.parse("0", "y", "t")));
@@ -152,10 +183,45 @@ class AllFluxTest {
         OracleException e = assertThrows(OracleException.class, () -> Oracle.prepare(steady, 0, 1e-8));
         assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
         assertTrue(e.getMessage().contains("steady"), e.getMessage());
-        sides.put(Side.XMIN, new BoundaryCondition.Neumann(Expression.parse("5*t", "y", "t")));
-        Problem changing = new Problem(new Rectangle(1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y"),
-            xyt("0"), sides);
-        e = assertThrows(OracleException.class, () -> Oracle.prepare(changing, 1, 1e-8));
-        assertTrue(e.getMessage().startsWith("boundary.xmin: changes in time on a body insulated"), e.getMessage());
+        Problem heated = new Problem(new Rectangle(1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y"),
+            xyt("5*t"), sides);
+        e = assertThrows(OracleException.class, () -> Oracle.prepare(heated, 1, 1e-8));
+        assertTrue(e.getMessage().startsWith("source: changes in time on a body insulated"), e.getMessage());
+    }
+
+    /**
+     * The product of two heat polynomials (Rosenbloom and Widder 1959, from memory), u = (x^2 + 2 alpha t)
+     * (y^2 + 2 alpha t), on a plate whose four sides are flux-driven: the fluxes 2 k a (y^2 + 2 alpha t) and
+     * 2 k b (x^2 + 2 alpha t) on x = a and y = b grow in time (two terms each), the others vanish; the mean
+     * rises with their time integral. Values, gradients and a cell mean to 1e-10 of the scale.
+     */
+    @Test
+    void growingFluxesOnEverySideAgainstHeatPolynomials() {
+        double k = 3;
+        Material material = new Material(k, 6);
+        double alpha = material.diffusivity();
+        Expression exact = xyt("(x^2 + " + 2 * alpha + "*t)*(y^2 + " + 2 * alpha + "*t)");
+        Map<Side, Manufactured.Face> kinds = new EnumMap<>(Side.class);
+        for (Side s : new Side[] {Side.XMIN, Side.XMAX, Side.YMIN, Side.YMAX}) {
+            kinds.put(s, Manufactured.Face.neumann());
+        }
+        Problem p = Manufactured.cartesian(exact, new Rectangle(0.8, 0.5), material, kinds);
+        Oracle o = Oracle.prepare(p, 1.5, 1e-10);
+        double limit = 1e-10 * o.temperatureScale();
+        SplittableRandom random = new SplittableRandom(29);
+        for (int i = 0; i < 20; i++) {
+            double x = (0.04 + 0.92 * random.nextDouble()) * 0.8;
+            double y = (0.04 + 0.92 * random.nextDouble()) * 0.5;
+            double t = 0.02 + 1.48 * random.nextDouble();
+            double[] q = {x, y};
+            assertWithin(exact.value(x, y, t), o.temperature(q, t), limit, "u at " + x + ", " + y + ", " + t);
+            Evaluation[] g = o.gradient(q, t);
+            assertWithin(exact.derivative("x").value(x, y, t), g[0], limit / 0.5, "du/dx at " + x + ", " + y + ", " + t);
+            assertWithin(exact.derivative("y").value(x, y, t), g[1], limit / 0.5, "du/dy at " + x + ", " + y + ", " + t);
+        }
+        double c = 2 * alpha * 0.9;
+        double mx = (Math.pow(0.5, 3) - Math.pow(0.3, 3)) / (3 * 0.2) + c;
+        double my = (Math.pow(0.25, 3) - Math.pow(0.1, 3)) / (3 * 0.15) + c;
+        assertWithin(mx * my, o.cellAverage(new double[] {0.3, 0.1}, new double[] {0.5, 0.25}, 0.9), limit, "cell mean");
     }
 }
