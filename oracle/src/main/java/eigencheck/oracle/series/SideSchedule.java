@@ -51,6 +51,11 @@ final class SideSchedule {
      * times the last difference plus rounding.
      */
     double[] integral(double t) {
+        return integral(theta, t);
+    }
+
+    /** As {@link #integral(double)} for any f over the single variable t. */
+    static double[] integral(Expression f, double t) {
         if (!(t > 0)) {
             return new double[] {0, 0};
         }
@@ -65,7 +70,7 @@ final class SideSchedule {
             for (int p = 0; p < panels; p++) {
                 double mid = (p + 0.5) * h;
                 for (int q = 0; q < rule.nodes.length; q++) {
-                    double v = rule.weights[q] * theta.value(mid + 0.5 * h * rule.nodes[q]);
+                    double v = rule.weights[q] * f.value(mid + 0.5 * h * rule.nodes[q]);
                     sum += v;
                     magnitude += Math.abs(v);
                 }

@@ -53,7 +53,7 @@ import java.util.Map;
  * flux-driven the constant mode stays, the faces' constant modes take the quadratic profile (1 - s/D)^2
  * (its uniform sink balanced by the mean's drift, {@link #driftRate}); side terms there use their
  * shape series less its mean and lags of mean zero ({@link #zeroMeanLag}), and the source must be
- * uniform and constant in time. It refuses the rest (UNSUPPORTED), and points nearer to a face with data than its
+ * uniform (a change in time only raises the mean, by its integral). It refuses the rest (UNSUPPORTED), and points nearer to a face with data than its
  * series can reach (TOO_MANY_MODES), except on Dirichlet faces, where u is the data.
  */
 public final class TensorSolver implements SpatialSolver {
@@ -96,6 +96,8 @@ public final class TensorSolver implements SpatialSolver {
     private final boolean allFlux;
     private final double driftRate;
     private final double driftError;
+    /** sigma(t), the change of a uniform source in K/s, on a body with flux faces only: the mean rises by its integral. */
+    private final Expression heatingOnly;
     /** The terms theta(t) phi(s) of rectangle sides whose data change in time other than by a common level. */
     private final List<Moving> moving = new ArrayList<>();
     /** Each side's data as given (with t), for u on a Dirichlet side. */
@@ -178,15 +180,15 @@ public final class TensorSolver implements SpatialSolver {
         }
         double[] mismatch = new double[1];
         Expression heating = steady ? null : heatingOf(problem, timeHorizon, mismatch);
-        if (allFlux && heating != null) {
-            throw new OracleException(Reason.UNSUPPORTED, "source: changes in time on a body insulated or flux-driven"
-                + " on every face; this version takes such a body's source constant in time");
-        }
+        // every face insulated or flux-driven: a uniform source's change only raises the mean, by int sigma
+        this.heatingOnly = allFlux ? heating : null;
         if (heating == null) {
             variation += 2 * requireConstantInTime(problem.source(), "source", timeHorizon) * lengthScale * lengthScale / k;
         } else {
             variation += 2 * mismatch[0] * lengthScale * lengthScale / k;
-            if (levelExpression == null) {
+            if (allFlux) {
+                heating = null;
+            } else if (levelExpression == null) {
                 levelExpression = Expression.constant(0, "t");
             }
         }
@@ -194,7 +196,9 @@ public final class TensorSolver implements SpatialSolver {
         this.level = levelExpression == null ? null
             : new CommonLevel(levelExpression, heating, timeHorizon, alpha, axes);
         // a uniform source that changes in time moves the temperature by up to max |sigma| T
-        double heated = heating == null ? 0 : CommonLevel.sizes(heating, heating, heating, timeHorizon)[0] * timeHorizon;
+        Expression anyHeating = heating != null ? heating : heatingOnly;
+        double heated = anyHeating == null ? 0
+            : CommonLevel.sizes(anyHeating, anyHeating, anyHeating, timeHorizon)[0] * timeHorizon;
         this.scale = scaleOf(problem) + (level == null ? 0 : level.levelMax) + heated + movingSize
             + (allFlux ? driftEstimate(problem) * timeHorizon : 0);
         Expression q = problem.source();
@@ -2535,6 +2539,11 @@ public final class TensorSolver implements SpatialSolver {
                         scheduledDrift += input * integral[0];
                         scheduledDriftBound += Math.abs(input) * integral[1] + 4 * EPS * Math.abs(input * integral[0]);
                     }
+                }
+                if (heatingOnly != null) {
+                    double[] integral = SideSchedule.integral(heatingOnly, t);
+                    scheduledDrift += integral[0];
+                    scheduledDriftBound += integral[1] + 4 * EPS * Math.abs(integral[0]);
                 }
             }
             if (t == Double.POSITIVE_INFINITY || t == 0) {

@@ -172,7 +172,7 @@ class AllFluxTest {
     }
 
     @Test
-    void refusesTheSteadyStateAndAChangingSource() {
+    void refusesTheSteadyStateAndAnUnevenSource() {
         Map<Side, BoundaryCondition> sides = new EnumMap<>(Side.class);
         sides.put(Side.XMIN, new BoundaryCondition.Neumann(Expression.parse("5", "y", "t")));
         sides.put(Side.XMAX, new BoundaryCondition.Neumann(Expression.parse("0", "y", "t")));
@@ -183,10 +183,38 @@ class AllFluxTest {
         OracleException e = assertThrows(OracleException.class, () -> Oracle.prepare(steady, 0, 1e-8));
         assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
         assertTrue(e.getMessage().contains("steady"), e.getMessage());
-        Problem heated = new Problem(new Rectangle(1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y"),
-            xyt("5*t"), sides);
-        e = assertThrows(OracleException.class, () -> Oracle.prepare(heated, 1, 1e-8));
-        assertTrue(e.getMessage().startsWith("source: changes in time on a body insulated"), e.getMessage());
+        Problem uneven = new Problem(new Rectangle(1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y"),
+            xyt("5*x*t"), sides);
+        e = assertThrows(OracleException.class, () -> Oracle.prepare(uneven, 1, 1e-8));
+        assertTrue(e.getMessage().startsWith("source: changes in time other than uniformly"), e.getMessage());
+    }
+
+    /**
+     * A uniform source switched on as 300 (1 - exp(-2t)) W/m^3 in a plate heated through one side: the
+     * source only raises the mean, by its time integral, so u = u_flux + (300 / (rho c)) (t - (1 - exp(-2t))/2)
+     * (superposition, common practice), u_flux the same plate without the source.
+     */
+    @Test
+    void uniformSourceSwitchedOnOnlyRaisesTheMean() {
+        Material m = new Material(2, 4);
+        Map<Side, BoundaryCondition> sides = new EnumMap<>(Side.class);
+        sides.put(Side.XMIN, new BoundaryCondition.Neumann(Expression.parse("50*(1 + y)", "y", "t")));
+        sides.put(Side.XMAX, new BoundaryCondition.Neumann(Expression.parse("0", "y", "t")));
+        sides.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        sides.put(Side.YMAX, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        Expression initial = Expression.parse("20 + x*y", "x", "y");
+        Oracle heated = Oracle.prepare(new Problem(new Rectangle(1, 0.5), m, initial, xyt("300*(1 - exp(-2*t))"), sides),
+            2, 1e-10);
+        Oracle plain = Oracle.prepare(new Problem(new Rectangle(1, 0.5), m, initial, xyt("0"), sides), 2, 1e-10);
+        for (double t : new double[] {0.1, 1, 2}) {
+            double rise = 300 / 4.0 * (t - (1 - Math.exp(-2 * t)) / 2);
+            for (double[] q : new double[][] {{0.5, 0.25}, {0.9, 0.45}}) {
+                Evaluation e = heated.temperature(q, t);
+                Evaluation f = plain.temperature(q, t);
+                assertTrue(Math.abs(e.value() - f.value() - rise) <= e.bound() + f.bound(), "at t = " + t + ": "
+                    + (e.value() - f.value()) + " against " + rise);
+            }
+        }
     }
 
     /**
