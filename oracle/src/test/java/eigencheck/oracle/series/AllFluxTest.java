@@ -225,31 +225,10 @@ class AllFluxTest {
      */
     @Test
     void growingFluxesOnEverySideAgainstHeatPolynomials() {
-        double k = 3;
-        Material material = new Material(k, 6);
-        double alpha = material.diffusivity();
-        Expression exact = xyt("(x^2 + " + 2 * alpha + "*t)*(y^2 + " + 2 * alpha + "*t)");
         Map<Side, Manufactured.Face> kinds = new EnumMap<>(Side.class);
         for (Side s : new Side[] {Side.XMIN, Side.XMAX, Side.YMIN, Side.YMAX}) {
             kinds.put(s, Manufactured.Face.neumann());
         }
-        Problem p = Manufactured.cartesian(exact, new Rectangle(0.8, 0.5), material, kinds);
-        Oracle o = Oracle.prepare(p, 1.5, 1e-10);
-        double limit = 1e-10 * o.temperatureScale();
-        SplittableRandom random = new SplittableRandom(29);
-        for (int i = 0; i < 20; i++) {
-            double x = (0.04 + 0.92 * random.nextDouble()) * 0.8;
-            double y = (0.04 + 0.92 * random.nextDouble()) * 0.5;
-            double t = 0.02 + 1.48 * random.nextDouble();
-            double[] q = {x, y};
-            assertWithin(exact.value(x, y, t), o.temperature(q, t), limit, "u at " + x + ", " + y + ", " + t);
-            Evaluation[] g = o.gradient(q, t);
-            assertWithin(exact.derivative("x").value(x, y, t), g[0], limit / 0.5, "du/dx at " + x + ", " + y + ", " + t);
-            assertWithin(exact.derivative("y").value(x, y, t), g[1], limit / 0.5, "du/dy at " + x + ", " + y + ", " + t);
-        }
-        double c = 2 * alpha * 0.9;
-        double mx = (Math.pow(0.5, 3) - Math.pow(0.3, 3)) / (3 * 0.2) + c;
-        double my = (Math.pow(0.25, 3) - Math.pow(0.1, 3)) / (3 * 0.15) + c;
-        assertWithin(mx * my, o.cellAverage(new double[] {0.3, 0.1}, new double[] {0.5, 0.25}, 0.9), limit, "cell mean");
+        SideScheduleTest.checkHeatPolynomialProduct(kinds, 29, 20);
     }
 }
