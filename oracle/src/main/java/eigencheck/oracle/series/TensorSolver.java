@@ -2360,40 +2360,34 @@ public final class TensorSolver implements SpatialSolver {
                 parts[1] = lagAt(p, o);
             }
             for (int k = 0; k < moving.size(); k++) {
-                parts[base + 3 * k] = shapeAt(k, p, o, null, null);
-                parts[base + 3 * k + 1] = sideLagAt(k, 1, p, o, null, null);
-                parts[base + 3 * k + 2] = sideLagAt(k, 2, p, o, null, null);
+                for (int order = 0; order < 3; order++) {
+                    parts[base + 3 * k + order] = sidePart(k, order, p, o, null, null);
+                }
             }
             return parts;
         };
     }
 
     /**
-     * A side term's shape series H_k (harmonic, B = phi on its side; less its mean when every face is a flux
-     * face) at a point, or its cell mean up to hi, or with its gradient.
+     * Part {@code order} of side term k at a point, or its cell mean up to hi, or with its gradient: 0, the
+     * shape series H_k (harmonic, B = phi on its side; less its mean when every face is a flux face); 1 and
+     * 2, its lags (Laplace Pi_1 = H_k, Laplace Pi_2 = Pi_1, homogeneous conditions) by the resonant profiles.
+     * Each within tolerance * scale / 16 per term once multiplied by the largest theta, theta' / alpha or
+     * theta'' / alpha^2; zero when that factor is.
      */
-    private Evaluation shapeAt(int k, double[] p, int o, double[] hi, double[] grad) {
+    private Evaluation sidePart(int k, int order, double[] p, int o, double[] hi, double[] grad) {
         Moving mv = moving.get(k);
-        double[] bounds = new double[2];
-        double budget = tolerance * scale / (16 * moving.size() * mv.schedule().thetaMax);
-        double value = mv.shape().add(p, o, hi, budget, grad, bounds, 0) - mv.mean();
-        return new Evaluation(value, grad == null ? bounds[0] + 2 * EPS * Math.abs(mv.mean()) : bounds[1]);
-    }
-
-    /**
-     * A side term's lag of order 1 (Laplace Pi_1 = H_k) or 2 (Laplace Pi_2 = Pi_1), homogeneous conditions, by
-     * the resonant profiles; as {@link #shapeAt}. Zero when the schedule's derivative it multiplies is.
-     */
-    private Evaluation sideLagAt(int k, int order, double[] p, int o, double[] hi, double[] grad) {
-        Moving mv = moving.get(k);
-        double size = order == 1 ? mv.schedule().slopeMax / alpha : mv.schedule().curvatureMax / (alpha * alpha);
+        SideSchedule schedule = mv.schedule();
+        double size = order == 0 ? schedule.thetaMax
+            : order == 1 ? schedule.slopeMax / alpha : schedule.curvatureMax / (alpha * alpha);
         if (size == 0) {
             return new Evaluation(0, 0);
         }
         double[] bounds = new double[2];
         double budget = tolerance * scale / (16 * moving.size() * size);
-        double value = mv.shape().add(p, o, hi, budget, grad, bounds, order);
-        return new Evaluation(value, grad == null ? bounds[0] : bounds[1]);
+        double mean = order == 0 ? mv.mean() : 0;
+        double value = mv.shape().add(p, o, hi, budget, grad, bounds, order) - mean;
+        return new Evaluation(value, grad == null ? bounds[0] + 2 * EPS * Math.abs(mean) : bounds[1]);
     }
 
     /** Whether u carries the lag term -r(t) P (a level or uniform source that moves). */
@@ -2402,8 +2396,8 @@ public final class TensorSolver implements SpatialSolver {
     }
 
     /**
-     * P at a point, within tolerance * scale / (8 max|b'|): by its own solver, or, where that solver's
-     * face series cannot reach (points on or very near a convective side), by {@link LagSeries}.
+     * P at a point, within tolerance * scale / (8 max|b'|): in a rectangle by {@link LagSeries}, certified up
+     * to the sides; in a box by its own solver, refused where that solver's face series cannot reach.
      */
     private Evaluation lagAt(double[] p, int o) {
         if (lagSeries != null) {
@@ -2417,12 +2411,7 @@ public final class TensorSolver implements SpatialSolver {
             if (e.reason() != Reason.TOO_MANY_MODES && e.reason() != Reason.NOT_CERTIFIED) {
                 throw e;
             }
-            if (lagSeries == null) {
-                throw lagRefused(p, o, "u", e);
-            }
-            double[] bounds = new double[2];
-            double value = lagSeries.evaluate(p, o, tolerance * scale / (8 * level.rateMax), null, bounds);
-            return new Evaluation(value, bounds[0]);
+            throw lagRefused(p, o, "u", e);
         }
     }
 
@@ -2439,12 +2428,7 @@ public final class TensorSolver implements SpatialSolver {
             if (e.reason() != Reason.TOO_MANY_MODES && e.reason() != Reason.NOT_CERTIFIED) {
                 throw e;
             }
-            if (lagSeries == null) {
-                throw lagRefused(p, o, "grad u", e);
-            }
-            double[] bounds = new double[2];
-            lagSeries.evaluate(p, o, tolerance * scale / (8 * level.rateMax), out, bounds);
-            return bounds[1];
+            throw lagRefused(p, o, "grad u", e);
         }
     }
 
@@ -2772,6 +2756,12 @@ public final class TensorSolver implements SpatialSolver {
             return modes;
         }
 
+        /** What part {@code order} of side term k is multiplied by at this time: theta, theta' / alpha, theta'' / alpha^2. */
+        private double sideFactor(int k, int order) {
+            return order == 0 ? thetaNow[k] : order == 1 ? thetaSlopeNow[k] / alpha
+                : thetaCurvatureNow[k] / (alpha * alpha);
+        }
+
         /** The mean's rise by time t on a body insulated or flux-driven on every face (0 otherwise). */
         private double drift() {
             return allFlux ? driftRate * t + scheduledDrift : 0;
@@ -2810,13 +2800,13 @@ public final class TensorSolver implements SpatialSolver {
             }
             int base = hasLag() ? 2 : 1;
             for (int k = 0; k < thetaNow.length; k++) {
-                Evaluation shapePart = steadyParts != null ? steadyParts[base + 3 * k] : shapeAt(k, p, o, null, null);
-                Evaluation lag1 = steadyParts != null ? steadyParts[base + 3 * k + 1] : sideLagAt(k, 1, p, o, null, null);
-                Evaluation lag2 = steadyParts != null ? steadyParts[base + 3 * k + 2] : sideLagAt(k, 2, p, o, null, null);
-                value += thetaNow[k] * shapePart.value() + thetaSlopeNow[k] / alpha * lag1.value()
-                    + thetaCurvatureNow[k] / (alpha * alpha) * lag2.value();
-                bound += Math.abs(thetaNow[k]) * shapePart.bound() + Math.abs(thetaSlopeNow[k]) / alpha * lag1.bound()
-                    + Math.abs(thetaCurvatureNow[k]) / (alpha * alpha) * lag2.bound();
+                for (int order = 0; order < 3; order++) {
+                    Evaluation e = steadyParts != null ? steadyParts[base + 3 * k + order]
+                        : sidePart(k, order, p, o, null, null);
+                    double c = sideFactor(k, order);
+                    value += c * e.value();
+                    bound += Math.abs(c) * e.bound();
+                }
             }
             if (weighted != null) {
                 double[] vb = modalSum(p, o, null);
@@ -2858,19 +2848,17 @@ public final class TensorSolver implements SpatialSolver {
                     g[i] -= slopeNow * lagged[i];
                 }
             }
+            double[] part = new double[d];
             for (int k = 0; k < thetaNow.length; k++) {
-                double[] gs = new double[d];
-                double[] g1 = new double[d];
-                double[] g2 = new double[d];
-                double bs = shapeAt(k, p, o, null, gs).bound();
-                double b1 = sideLagAt(k, 1, p, o, null, g1).bound();
-                double b2 = sideLagAt(k, 2, p, o, null, g2).bound();
-                double c1 = thetaSlopeNow[k] / alpha;
-                double c2 = thetaCurvatureNow[k] / (alpha * alpha);
-                for (int i = 0; i < d; i++) {
-                    g[i] += thetaNow[k] * gs[i] + c1 * g1[i] + c2 * g2[i];
+                for (int order = 0; order < 3; order++) {
+                    java.util.Arrays.fill(part, 0);
+                    double b = sidePart(k, order, p, o, null, part).bound();
+                    double c = sideFactor(k, order);
+                    for (int i = 0; i < d; i++) {
+                        g[i] += c * part[i];
+                    }
+                    bound += Math.abs(c) * b;
                 }
-                bound += Math.abs(thetaNow[k]) * bs + Math.abs(c1) * b1 + Math.abs(c2) * b2;
             }
             if (weighted != null) {
                 GradientBox box = gradientBox(budget / (8 * lengthScale));
@@ -2922,13 +2910,12 @@ public final class TensorSolver implements SpatialSolver {
                 bound += Math.abs(slopeNow) * lagged.bound();
             }
             for (int k = 0; k < thetaNow.length; k++) {
-                Evaluation shapePart = shapeAt(k, lo, 0, hi, null);
-                Evaluation lag1 = sideLagAt(k, 1, lo, 0, hi, null);
-                Evaluation lag2 = sideLagAt(k, 2, lo, 0, hi, null);
-                value += thetaNow[k] * shapePart.value() + thetaSlopeNow[k] / alpha * lag1.value()
-                    + thetaCurvatureNow[k] / (alpha * alpha) * lag2.value();
-                bound += Math.abs(thetaNow[k]) * shapePart.bound() + Math.abs(thetaSlopeNow[k]) / alpha * lag1.bound()
-                    + Math.abs(thetaCurvatureNow[k]) / (alpha * alpha) * lag2.bound();
+                for (int order = 0; order < 3; order++) {
+                    Evaluation e = sidePart(k, order, lo, 0, hi, null);
+                    double c = sideFactor(k, order);
+                    value += c * e.value();
+                    bound += Math.abs(c) * e.bound();
+                }
             }
             if (weighted != null) {
                 double[] vb = modalSum(lo, 0, hi, null);
