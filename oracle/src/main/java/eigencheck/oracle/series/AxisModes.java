@@ -58,6 +58,16 @@ final class AxisModes {
         return (Math.cos(phase[j]) - Math.cos(m * length + phase[j])) / m;
     }
 
+    /** \(\int_0^L x\,X_j\,dx\). */
+    double firstMoment(int j) {
+        double m = mu[j];
+        if (m == 0) {
+            return 0.5 * length * length;
+        }
+        double arg = m * length + phase[j];
+        return -length * Math.cos(arg) / m + (Math.sin(arg) - Math.sin(phase[j])) / (m * m);
+    }
+
     /** A lower bound of \(\|X_j\|^2\) over all j >= 0: the computed minimum, and L(1/2 - 1/(2 pi)) beyond. */
     double normLowerBound(int computed) {
         double min = length * (0.5 - 0.5 / Math.PI);

@@ -60,6 +60,18 @@ final class GaussLegendre {
         }
     }
 
+    /** Nodes and weights of the n-point rule on [0, L], as {nodes, weights}. */
+    static double[][] onInterval(int n, double length) {
+        GaussLegendre g = of(n);
+        double[] x = new double[n];
+        double[] w = new double[n];
+        for (int q = 0; q < n; q++) {
+            x[q] = 0.5 * length * (g.nodes[q] + 1);
+            w[q] = 0.5 * length * g.weights[q];
+        }
+        return new double[][] {x, w};
+    }
+
     static GaussLegendre of(int n) {
         if (n < 1) {
             throw new IllegalArgumentException("Gauss-Legendre order " + n + " must be >= 1");

@@ -49,7 +49,10 @@ import java.util.Map;
  * terms theta(t) phi(s) ({@link SideSchedule}), each adding theta H + theta' Pi_1 / alpha + theta'' Pi_2 /
  * alpha^2 with H the face series of phi and Pi_1, Pi_2 its lags by the resonant profiles
  * ({@link Face#lagProfile}), and particular modes driven by theta''' ({@link #addScheduled}). This version
- * takes a source varying along one axis at most (or a sum of such terms). With every face insulated or
+ * takes a source varying along one axis at most, a sum of such terms, or in a rectangle any smooth
+ * source: then the blend's parts psi(x) beta(y) replace P and the remainder
+ * \(W = \sum Q_{r,J} X_J / (k \lambda_J)\) joins the steady part ({@link SourceRemainder},
+ * {@link #addBlends}, {@link #remainderSeries}). With every face insulated or
  * flux-driven the constant mode stays, the faces' constant modes take the quadratic profile (1 - s/D)^2
  * (its uniform sink balanced by the mean's drift, {@link #driftRate}); side terms there use their
  * shape series less its mean and lags of mean zero ({@link #zeroMeanLag}), and the source must be
@@ -103,9 +106,47 @@ public final class TensorSolver implements SpatialSolver {
     /** Each side's data as given (with t), for u on a Dirichlet side. */
     private final Expression[][] original = new Expression[3][2];
     private Modal modal;
+    /** A rectangle's source that is not a sum of one-coordinate terms: its blend and remainder (null otherwise). */
+    private final SourceRemainder remainder;
+    /** The blend's steady parts psi(x_a) beta(x_b), one per Dirichlet side (empty without a remainder). */
+    private final List<Blend> blends = new ArrayList<>();
+    /** The remainder's steady series W_J = Q_r,J / (k lambda_J) on boxes for values and for gradients. */
+    private RemainderSeries remainderValues;
+    private RemainderSeries remainderGradients;
 
     /** One term of a side's change in time: its schedule and the face series of its shape. */
     private record Moving(SideSchedule schedule, Face shape, double mean, double input) {
+    }
+
+    /**
+     * One steady part of the blend: psi(x_axis) beta(x_along), psi = c0 + c1 x_axis the weight of end
+     * {@code side} ({@link SourceRemainder}), beta the slab solution along the other axis of the source
+     * {@code source} (over x_along), with that axis's homogeneous conditions. It leaves faceFactor beta in
+     * B-form on its own side (1 on a Dirichlet side, -+k on a flux or convective one, since B = k du/dn + h u
+     * there and B_e psi = 1) and nothing on the others.
+     */
+    private record Blend(int axis, int side, double c0, double c1, int along, SlabSolver.Slice slice,
+                         Expression source, double faceFactor) {
+        double psi(double x) {
+            return c0 + c1 * x;
+        }
+
+        /** The mean of psi over [a, b], or its value when a == b. */
+        double psiMean(double a, double b) {
+            return c0 + c1 * 0.5 * (a + b);
+        }
+
+        /** max |psi| over [0, l]. */
+        double psiMax(double l) {
+            return Math.max(Math.abs(c0), Math.abs(c0 + c1 * l));
+        }
+    }
+
+    /**
+     * W_J on the box 0..m-1 per axis (row-major), cut from a table of {@code table} modes per axis, with the
+     * bounds {value, gradient} of all it leaves out.
+     */
+    private record RemainderSeries(int table, int[] m, double[] weights, double bound, double gradientBound) {
     }
 
     public TensorSolver(Problem problem, double timeHorizon, double tolerance) {
@@ -218,9 +259,18 @@ public final class TensorSolver implements SpatialSolver {
                 along.add(i);
             }
         }
+        SourceRemainder split = null;
         if (along.size() > 1) {
-            variation += 2 * requireAdditive(q, along) * lengthScale * lengthScale / k;
+            double[] mixed = mixedDifference(q, along);
+            if (mixed[0] <= 1e-12 * Math.max(1, mixed[1])) {
+                variation += 2 * mixed[0] * lengthScale * lengthScale / k;
+            } else if (d == 2 && !allFlux) {
+                split = remainderOf(q);
+            } else {
+                throw notAdditive(along);
+            }
         }
+        this.remainder = split;
         boolean zeroSource = negligible || q.isConstant() && q.value(new double[q.variables().size()]) == 0;
         int constantAxis = along.isEmpty() ? -1 : along.get(0);
         double sourceDrift = 0;
@@ -239,7 +289,10 @@ public final class TensorSolver implements SpatialSolver {
         }
         this.sourceSlices = new SlabSolver.Slice[d];
         this.sourceParts = new Expression[d];
-        if (!zeroSource) {
+        if (remainder != null) {
+            addBlends(problem.material());
+            buildRemainderSeries();
+        } else if (!zeroSource) {
             for (int i : along) {
                 if (axes[i].zero) {
                     throw new OracleException(Reason.UNSUPPORTED, "source: varies along " + NAMES[i] + ", whose two"
@@ -697,11 +750,12 @@ public final class TensorSolver implements SpatialSolver {
     }
 
     /**
-     * Refuses a source that varies along several axes unless it is additive, Q = sum_i q_i(x_i): the
-     * mixed differences Q(p) - Q(p, x_i = 0) - Q(p, x_j = 0) + Q(p, x_i = x_j = 0) vanish at 81 sampled
-     * points for every pair (to 1e-12 of |Q|). Returns the largest mixed difference found.
+     * Whether a source that varies along several axes is additive, Q = sum_i q_i(x_i): the mixed
+     * differences Q(p) - Q(p, x_i = 0) - Q(p, x_j = 0) + Q(p, x_i = x_j = 0) at 81 sampled points for
+     * every pair. Returns {largest mixed difference, largest |Q|}; additive when the first is within
+     * 1e-12 of the second.
      */
-    private double requireAdditive(Expression q, List<Integer> along) {
+    private double[] mixedDifference(Expression q, List<Integer> along) {
         double worst = 0;
         double size = 0;
         double[] p = new double[d];
@@ -724,20 +778,230 @@ public final class TensorSolver implements SpatialSolver {
                 }
             }
         }
-        if (worst > 1e-12 * Math.max(1, size)) {
-            StringBuilder names = new StringBuilder();
-            for (int i : along) {
-                names.append(names.length() == 0 ? "" : " and ").append(NAMES[i]);
-            }
-            throw new OracleException(Reason.UNSUPPORTED, "source: varies along " + names + " and is not a sum of"
-                + " terms of one coordinate each; this version solves rectangles and boxes whose source is such a sum"
-                + " (Q = a(x) + b(y) + c(z), a constant included); for a general source use a manufactured solution");
+        return new double[] {worst, size};
+    }
+
+    private OracleException notAdditive(List<Integer> along) {
+        StringBuilder names = new StringBuilder();
+        for (int i : along) {
+            names.append(names.length() == 0 ? "" : " and ").append(NAMES[i]);
         }
-        return worst;
+        String where = d == 3 ? "this version solves boxes whose source is a sum of terms of one coordinate each"
+            + " (Q = a(x) + b(y) + c(z), a constant included); a rectangle takes any smooth source"
+            : "every side is insulated or flux-driven, where this version takes a uniform source only";
+        return new OracleException(Reason.UNSUPPORTED, "source: varies along " + names + " and is not a sum of"
+            + " terms of one coordinate each; " + where + "; for a general source use a manufactured solution");
+    }
+
+    /**
+     * The blend and remainder of a rectangle's source that is not additive ({@link SourceRemainder}).
+     * Refused when the source may be non-smooth (the bound of the remainder's coefficients rests on
+     * smoothness), or when a blend's slab would run along a pair of insulated or flux-driven sides.
+     */
+    private SourceRemainder remainderOf(Expression q) {
+        if (q.mayBeNonSmooth()) {
+            throw new OracleException(Reason.UNSUPPORTED, "source: varies along x and y, is not a sum of terms of"
+                + " one coordinate each, and may be non-smooth (abs, min, max or a step); this version takes such a"
+                + " source when it is smooth: write it without them, or use a manufactured solution");
+        }
+        for (int axis = 0; axis < 2; axis++) {
+            boolean held = type[axis][0] == DIRICHLET || type[axis][1] == DIRICHLET;
+            if (held && axes[1 - axis].zero) {
+                throw new OracleException(Reason.UNSUPPORTED, "source: varies along x and y and is not a sum of"
+                    + " terms of one coordinate each; with a temperature on a side normal to " + NAMES[axis]
+                    + " and both sides normal to " + NAMES[1 - axis] + " insulated or flux-driven, this version"
+                    + " takes only a source that is such a sum; give a side normal to " + NAMES[1 - axis]
+                    + " convection or a temperature, or use a manufactured solution");
+            }
+        }
+        Expression qxy = q.variables().contains("t") ? q.substitute("t", 0) : q;
+        double[][] hOverK = new double[2][2];
+        for (int i = 0; i < 2; i++) {
+            for (int s = 0; s < 2; s++) {
+                hOverK[i][s] = type[i][s] == DIRICHLET ? Double.POSITIVE_INFINITY : type[i][s] == NEUMANN ? 0
+                    : h[i][s] / k;
+            }
+        }
+        return new SourceRemainder(qxy.over("x", "y"), len, hOverK);
+    }
+
+    /**
+     * The remainder's steady series for values: the smallest table of 64 to 1024 modes per axis (doubling)
+     * whose tail ({@link SourceRemainder#tails}) is within tolerance * scale / 32; refused
+     * (TOO_MANY_MODES) when 1024 modes do not reach it.
+     */
+    private void buildRemainderSeries() {
+        double budget = tolerance * scale / 16;
+        int m = 64;
+        double[] tails = remainder.tails(axes, m, k);
+        while (tails[0] > budget / 2) {
+            if (m >= 1024) {
+                throw new OracleException(Reason.TOO_MANY_MODES, "source: its part that is not a sum of terms of"
+                    + " one coordinate each needs more than 1024 modes per axis at tolerance " + tolerance
+                    + " (what 1024 modes leave is bounded by " + tails[0] + " K, the budget is " + budget / 2
+                    + " K); loosen the tolerance, or smooth the source");
+            }
+            m *= 2;
+            tails = remainder.tails(axes, m, k);
+        }
+        remainderValues = remainderSeries(m, tails, false);
+    }
+
+    /**
+     * The remainder's series for gradients, on the first request: the value table when its tail is within
+     * tolerance * scale / (32 L), else the smallest larger table (up to 1024 modes per axis) whose tail is;
+     * the value table when none is (its points are then refused, with their bound).
+     */
+    private synchronized RemainderSeries remainderGradients() {
+        if (remainderGradients == null) {
+            double budget = tolerance * scale / (16 * lengthScale);
+            int m = remainderValues.table();
+            double[] tails = remainder.tails(axes, m, k);
+            int chosen = m;
+            for (int size = m; size <= 1024; size *= 2) {
+                double[] t = size == m ? tails : remainder.tails(axes, size, k);
+                if (t[1] <= budget / 2) {
+                    chosen = size;
+                    tails = t;
+                    break;
+                }
+            }
+            remainderGradients = chosen == m && remainderValues.gradientBound() <= budget ? remainderValues
+                : remainderSeries(chosen, chosen == m ? remainder.tails(axes, m, k) : tails, true);
+        }
+        return remainderGradients;
+    }
+
+    /**
+     * W_J = Q_r,J / (k lambda_J) on an m x m table, projected on tensor Gauss rules (the error by a rule 25 %
+     * finer), cut to the smallest square box whose left-out entries, tail and projection error stay within
+     * tolerance * scale / 16 (over the length scale for gradients).
+     */
+    private RemainderSeries remainderSeries(int m, double[] tails, boolean forGradients) {
+        SourceRemainder.Sampler sampler = remainder.sampler();
+        double[][] pr = project(point -> sampler.value(point[0], point[1]), new int[] {0, 1}, new int[] {m, m},
+            new double[2]);
+        double error = pr[1][0];
+        double[] w = new double[m * m];
+        double[] ringAbs = new double[m];
+        double[] ringGrad = new double[m];
+        double[] ringInverse = new double[m];
+        double[] ringInverseGrad = new double[m];
+        for (int a = 0; a < m; a++) {
+            double mu = axes[0].mu[a];
+            for (int b = 0; b < m; b++) {
+                double nu = axes[1].mu[b];
+                double inverse = 1 / (k * (mu * mu + nu * nu));
+                double c = pr[0][a * m + b] * inverse;
+                w[a * m + b] = c;
+                int ring = Math.max(a, b);
+                ringAbs[ring] += Math.abs(c);
+                ringGrad[ring] += Math.abs(c) * (mu + nu);
+                ringInverse[ring] += inverse;
+                ringInverseGrad[ring] += inverse * (mu + nu);
+            }
+        }
+        double totalAbs = 0;
+        double totalGrad = 0;
+        for (int r = 0; r < m; r++) {
+            totalAbs += ringAbs[r];
+            totalGrad += ringGrad[r];
+        }
+        double budget = tolerance * scale / 16 / (forGradients ? lengthScale : 1);
+        double insideAbs = 0;
+        double insideGrad = 0;
+        double inverse = 0;
+        double inverseGrad = 0;
+        for (int v = 1; v <= m; v++) {
+            insideAbs += ringAbs[v - 1];
+            insideGrad += ringGrad[v - 1];
+            inverse += ringInverse[v - 1];
+            inverseGrad += ringInverseGrad[v - 1];
+            double value = Math.max(0, totalAbs - insideAbs) + tails[0] + error * inverse + 4 * EPS * totalAbs;
+            double gradient = Math.max(0, totalGrad - insideGrad) + tails[1] + error * inverseGrad + 4 * EPS * totalGrad;
+            if ((forGradients ? gradient : value) <= budget || v == m) {
+                return new RemainderSeries(m, new int[] {v, v}, square(w, m, v), value, gradient);
+            }
+        }
+        throw new IllegalStateException("unreachable: the loop returns at v = m");
+    }
+
+    /** The leading v x v block of an m x m row-major table. */
+    private static double[] square(double[] w, int m, int v) {
+        double[] out = new double[v * v];
+        for (int a = 0; a < v; a++) {
+            System.arraycopy(w, a * m, out, a * v, v);
+        }
+        return out;
+    }
+
+    /**
+     * The blend's parts, one per end of a blended axis: for an end e of x, psi_e(x) times the y slab of
+     * G_e(y) = B_e Q(x_e, y) less its own blend in y, sum_r phi_r(y) B_r B_e Q(x_e, y_r) (so that the parts
+     * sum to S = P_x (I - P_y) Q + P_y Q); for an end r of y, phi_r(y) times the x slab of B_r Q(x, y_r).
+     */
+    private void addBlends(Material material) {
+        int terms = 0;
+        for (int axis = 0; axis < 2; axis++) {
+            terms += remainder.blended(axis) ? 2 : 0;
+        }
+        for (int axis = 0; axis < 2; axis++) {
+            if (!remainder.blended(axis)) {
+                continue;
+            }
+            int along = 1 - axis;
+            for (int side = 0; side < 2; side++) {
+                double at = side == 0 ? 0 : len[axis];
+                double[][] op = remainder.operator(axis, side);
+                Expression g = null;
+                for (int t = 0; t < op[0].length; t++) {
+                    int order = (int) op[0][t];
+                    Expression part = (axis == 0 ? remainder.sourceDerivative(order, 0)
+                        : remainder.sourceDerivative(0, order)).substitute(NAMES[axis], at);
+                    g = g == null ? part.linear(op[1][t], part, 0) : g.linear(1, part, op[1][t]);
+                }
+                if (axis == 0 && remainder.blended(1)) {
+                    for (int r = 0; r < 2; r++) {
+                        double[] wr = remainder.weight(1, r);
+                        double[][] opy = remainder.operator(1, r);
+                        double corner = 0;
+                        for (int t = 0; t < op[0].length; t++) {
+                            for (int u = 0; u < opy[0].length; u++) {
+                                corner += op[1][t] * opy[1][u] * remainder.sourceDerivative((int) op[0][t],
+                                    (int) opy[0][u]).value(at, r == 0 ? 0 : len[1]);
+                            }
+                        }
+                        Expression phi = Expression.constant(wr[0], "y").linear(1, Expression.parse("y", "y"), wr[1]);
+                        g = g.linear(1, phi, -corner);
+                    }
+                }
+                double[] w = remainder.weight(axis, side);
+                double factor = type[axis][side] == DIRICHLET ? 1 : side == 0 ? -k : k;
+                SlabSolver.Slice slice = new SlabSolver(slabProblem(g, along, material), 0, tolerance / (8 * terms)).at(0);
+                blends.add(new Blend(axis, side, w[0], w[1], along, slice, g, factor));
+            }
+        }
     }
 
     /** The steady slab problem of P along {@code axis}, with that axis's homogeneous face conditions. */
     private Problem sourceSlab(Problem problem, int axis, double subtract) {
+        Expression q = problem.source();
+        for (int i = 0; i < d; i++) {
+            if (i != axis && q.variables().contains(NAMES[i])) {
+                q = q.substitute(NAMES[i], 0);
+            }
+        }
+        if (q.variables().contains("t")) {
+            q = q.substitute("t", 0); // constant in t (checked)
+        }
+        if (subtract != 0) {
+            q = q.linear(1, Expression.constant(1, q.variables().toArray(String[]::new)), -subtract);
+        }
+        return slabProblem(q, axis, problem.material());
+    }
+
+    /** The steady slab problem along {@code axis} of a source over that axis's coordinate, with its homogeneous conditions. */
+    private Problem slabProblem(Expression source, int axis, Material material) {
         Map<Side, BoundaryCondition> bc = new EnumMap<>(Side.class);
         Side[] slabSides = {Side.XMIN, Side.XMAX};
         for (int s = 0; s < 2; s++) {
@@ -748,23 +1012,11 @@ public final class TensorSolver implements SpatialSolver {
                 default -> new BoundaryCondition.Robin(h[axis][s], zero);
             });
         }
-        Expression q = problem.source();
-        for (int i = 0; i < d; i++) {
-            if (i != axis && q.variables().contains(NAMES[i])) {
-                q = q.substitute(NAMES[i], 0);
-            }
-        }
-        if (q.variables().contains("t")) {
-            q = q.substitute("t", 0); // constant in t (checked)
-        }
-        q = q.over(NAMES[axis], "t");
+        Expression q = source.over(NAMES[axis], "t");
         if (axis != 0) {
             q = q.renamed(NAMES[axis], "x");
         }
-        if (subtract != 0) {
-            q = q.linear(1, Expression.constant(1, "x", "t"), -subtract);
-        }
-        return new Problem(new Slab(len[axis]), problem.material(), Expression.parse("0", "x"), q, bc, true);
+        return new Problem(new Slab(len[axis]), material, Expression.parse("0", "x"), q, bc, true);
     }
 
     @Override
@@ -947,18 +1199,6 @@ public final class TensorSolver implements SpatialSolver {
 
     // ---------------------------------------------------------------- the faces' elliptic series
 
-    /** Gauss-Legendre nodes and weights on [0, L]. */
-    private static double[][] rule(int n, double length) {
-        GaussLegendre g = GaussLegendre.of(n);
-        double[] x = new double[n];
-        double[] w = new double[n];
-        for (int q = 0; q < n; q++) {
-            x[q] = 0.5 * length * (g.nodes[q] + 1);
-            w[q] = 0.5 * length * g.weights[q];
-        }
-        return new double[][] {x, w};
-    }
-
     /** Nodes needed to project modes 0..m-1 to machine precision (about pi/2 per mode, plus margin). */
     private static int nodesFor(int m) {
         return (int) Math.ceil(1.6 * m + 40);
@@ -1027,7 +1267,7 @@ public final class TensorSolver implements SpatialSolver {
                     n += n / 4 + 8;
                 }
                 shape[i] = n;
-                rules[i] = rule(n, len[axisList[i]]);
+                rules[i] = GaussLegendre.onInterval(n, len[axisList[i]]);
                 total *= n;
             }
             double[] values = new double[total];
@@ -1131,7 +1371,7 @@ public final class TensorSolver implements SpatialSolver {
             double scaleData = type[axis][side] == ROBIN ? h[axis][side] : 1;
             double[] point = new double[d];
             point[axis] = side == 0 ? 0 : len[axis];
-            double[][] rule = rule(2048, len[t]);
+            double[][] rule = GaussLegendre.onInterval(2048, len[t]);
             double integral = 0;
             for (int q = 0; q < 2048; q++) {
                 point[t] = rule[0][q];
@@ -1139,6 +1379,11 @@ public final class TensorSolver implements SpatialSolver {
                 if (shape == null && sourceSlices[t] != null && type[axis][side] != NEUMANN) {
                     double slope = -sourceSlices[t].heatFlux(point[t]).value() / k;
                     g -= (type[axis][side] == ROBIN ? h[axis][side] : 1) * slope;
+                }
+                for (Blend b : blends) {
+                    if (shape == null && b.axis() == axis && b.side() == side) {
+                        g -= b.faceFactor() * -b.slice().heatFlux(point[t]).value() / k;
+                    }
                 }
                 integral += rule[1][q] * Math.abs(g);
             }
@@ -1816,10 +2061,16 @@ public final class TensorSolver implements SpatialSolver {
         return m;
     }
 
-    /** B_f(P) on a face: sum over the source's parts along the other axes of P_i (Dirichlet), 0 (Neumann), h P_i (Robin). */
+    /** B_f of the steady parts on a face: the source's slab parts along the other axes (P_i, 0, h P_i on a Dirichlet, flux, convective face) and the blend's parts of this side. */
     private double sourcePart(int axis, int side, double[] point) {
+        double blend = 0;
+        for (Blend b : blends) {
+            if (b.axis() == axis && b.side() == side) {
+                blend += b.faceFactor() * b.slice().temperature(point[b.along()]).value();
+            }
+        }
         if (type[axis][side] == NEUMANN) {
-            return 0;
+            return blend;
         }
         double p = 0;
         for (int i = 0; i < d; i++) {
@@ -1827,7 +2078,7 @@ public final class TensorSolver implements SpatialSolver {
                 p += sourceSlices[i].temperature(point[i]).value();
             }
         }
-        return type[axis][side] == ROBIN ? h[axis][side] * p : p;
+        return (type[axis][side] == ROBIN ? h[axis][side] * p : p) + blend;
     }
 
     // ---------------------------------------------------------------- the transient
@@ -1878,6 +2129,58 @@ public final class TensorSolver implements SpatialSolver {
                 }
                 err += qa[1][0] * weightMax;
                 uNorm += qa[1][1];
+            }
+            for (Blend b : blends) {
+                // psi_j beta_n: psi's projection on the modes of its axis, beta_n = G_n / (k nu_n^2) exactly
+                int ax = b.axis();
+                int al = b.along();
+                double[][] gb = project(point -> b.source().value(point[al]), new int[] {al}, new int[] {m[al]},
+                    new double[d]);
+                axes[ax].ensure(m[ax]);
+                axes[al].ensure(m[al]);
+                double[] psi = new double[m[ax]];
+                for (int j = 0; j < m[ax]; j++) {
+                    psi[j] = (b.c0() * axes[ax].integral(j) + b.c1() * axes[ax].firstMoment(j)) / axes[ax].norm[j];
+                }
+                double weightMax = 0;
+                int[] index = new int[d];
+                for (int cIndex = 0; cIndex < count; cIndex++) {
+                    unflatten(cIndex, m, index);
+                    double nu = axes[al].mu[index[al]];
+                    double w = psi[index[ax]] / (k * nu * nu);
+                    c[cIndex] -= gb[0][index[al]] * w;
+                    weightMax = Math.max(weightMax, Math.abs(w));
+                }
+                err += gb[1][0] * weightMax;
+                double[][] r = GaussLegendre.onInterval(64, len[al]);
+                double beta = 0;
+                for (int i = 0; i < 64; i++) {
+                    Evaluation e = b.slice().temperature(r[0][i]);
+                    double v = Math.abs(e.value()) + e.bound();
+                    beta += r[1][i] * v * v;
+                }
+                double l = len[ax];
+                double psiNorm = Math.sqrt(l * (b.c0() * b.c0() + b.c0() * b.c1() * l + b.c1() * b.c1() * l * l / 3));
+                uNorm += 1.01 * psiNorm * Math.sqrt(beta);
+            }
+            if (remainder != null) {
+                // W_J = Q_r,J / (k lambda_J), and ||W|| <= ||Q_r|| / (k lambda_min)
+                SourceRemainder.Sampler sampler = remainder.sampler();
+                double[][] qr = project(point -> sampler.value(point[0], point[1]), allAxes(), m, new double[d]);
+                double weightMax = 0;
+                int[] index = new int[d];
+                for (int cIndex = 0; cIndex < count; cIndex++) {
+                    unflatten(cIndex, m, index);
+                    double lambda = 0;
+                    for (int i = 0; i < d; i++) {
+                        lambda += axes[i].mu[index[i]] * axes[i].mu[index[i]];
+                    }
+                    c[cIndex] -= qr[0][cIndex] / (k * lambda);
+                    weightMax = Math.max(weightMax, 1 / (k * lambda));
+                }
+                err += qr[1][0] * weightMax;
+                double lambdaMin = axes[0].mu[0] * axes[0].mu[0] + axes[1].mu[0] * axes[1].mu[0];
+                uNorm += 1.01 * qr[1][1] / (k * lambdaMin);
             }
             for (Face f : faces) {
                 double weightMax = 0;
@@ -2311,7 +2614,7 @@ public final class TensorSolver implements SpatialSolver {
         SlabSolver.Slice sourceSlice = sourceSlices[a];
         double[][] p = project(point -> q.value(point[a], 0), new int[] {a}, new int[] {m}, new double[d]);
         // ||P|| over the body: the slab values on a Gauss rule, times the other edges' lengths
-        double[][] r = rule(64, len[a]);
+        double[][] r = GaussLegendre.onInterval(64, len[a]);
         double sum = 0;
         for (int i = 0; i < 64; i++) {
             Evaluation e = sourceSlice.temperature(r[0][i]);
@@ -2456,6 +2759,18 @@ public final class TensorSolver implements SpatialSolver {
                 value += e.value();
                 bound += e.bound();
             }
+        }
+        for (Blend b : blends) {
+            Evaluation e = b.slice().temperature(p[o + b.along()]);
+            double psi = b.psi(p[o + b.axis()]);
+            value += psi * e.value();
+            bound += Math.abs(psi) * e.bound() + 2 * EPS * Math.abs(psi * e.value());
+        }
+        if (remainderValues != null) {
+            RemainderSeries r = remainderValues;
+            double[] vb = sumModes(p, o, null, null, r.m(), r.weights());
+            value += vb[0];
+            bound += vb[1] + r.bound();
         }
         double faceBudget = tolerance * scale / (4 * faces.size());
         for (Face f : faces) {
@@ -2837,6 +3152,19 @@ public final class TensorSolver implements SpatialSolver {
                 g[sourceAxis] += -flux.value() / k;
                 bound += flux.bound() / k;
             }
+            for (Blend b : blends) {
+                Evaluation e = b.slice().temperature(p[o + b.along()]);
+                Evaluation flux = b.slice().heatFlux(p[o + b.along()]);
+                double psi = b.psi(p[o + b.axis()]);
+                g[b.axis()] += b.c1() * e.value();
+                g[b.along()] += -psi * flux.value() / k;
+                bound += Math.abs(b.c1()) * e.bound() + Math.abs(psi) * flux.bound() / k;
+            }
+            if (remainder != null) {
+                RemainderSeries r = remainderGradients();
+                double[] vb = sumModes(p, o, null, g, r.m(), r.weights());
+                bound += vb[2] + r.gradientBound();
+            }
             for (Face f : faces) {
                 f.add(p, o, budget / (4 * faces.size()), g, bounds);
                 bound += bounds[1];
@@ -2862,7 +3190,7 @@ public final class TensorSolver implements SpatialSolver {
             }
             if (weighted != null) {
                 GradientBox box = gradientBox(budget / (8 * lengthScale));
-                double[] vb = box == null ? modalSum(p, o, g) : modalSum(p, o, null, g, box.m, box.weighted);
+                double[] vb = box == null ? modalSum(p, o, g) : sumModes(p, o, null, g, box.m, box.weighted);
                 bound += vb[2] + (box == null ? modalGradientBound : box.bound);
             }
             double limit = budget / lengthScale;
@@ -2897,6 +3225,18 @@ public final class TensorSolver implements SpatialSolver {
                     bound += e.bound();
                 }
             }
+            for (Blend b : blends) {
+                Evaluation e = b.slice().cellAverage(lo[b.along()], hi[b.along()]);
+                double psi = b.psiMean(lo[b.axis()], hi[b.axis()]);
+                value += psi * e.value();
+                bound += Math.abs(psi) * e.bound() + 2 * EPS * Math.abs(psi * e.value());
+            }
+            if (remainderValues != null) {
+                RemainderSeries r = remainderValues;
+                double[] vb = sumModes(lo, 0, hi, null, r.m(), r.weights());
+                value += vb[0];
+                bound += vb[1] + r.bound();
+            }
             for (Face f : faces) {
                 value += f.add(lo, 0, hi, budget / (4 * faces.size()), null, bounds);
                 bound += bounds[0];
@@ -2930,88 +3270,11 @@ public final class TensorSolver implements SpatialSolver {
 
         /** {value, value rounding bound, gradient rounding bound}; adds the gradient into g if not null. */
         private double[] modalSum(double[] p, int o, double[] g) {
-            return modalSum(p, o, null, g, m, weighted);
+            return sumModes(p, o, null, g, m, weighted);
         }
 
         private double[] modalSum(double[] p, int o, double[] hi, double[] g) {
-            return modalSum(p, o, hi, g, m, weighted);
-        }
-
-        /** As above, or with {@code hi} not null the mean over the cell from p to hi. */
-        private double[] modalSum(double[] p, int o, double[] hi, double[] g, int[] m, double[] weighted) {
-            double[][] xs = new double[d][];
-            double[][] dxs = g == null ? null : new double[d][];
-            for (int i = 0; i < d; i++) {
-                AxisModes ax = axes[i];
-                xs[i] = new double[m[i]];
-                if (g != null) {
-                    dxs[i] = new double[m[i]];
-                }
-                double x = p[o + i];
-                for (int j = 0; j < m[i]; j++) {
-                    double arg = ax.mu[j] * x + ax.phase[j];
-                    xs[i][j] = hi == null ? Math.sin(arg) : meanOfMode(ax.mu[j], ax.phase[j], x, hi[i]);
-                    if (g != null) {
-                        dxs[i][j] = ax.mu[j] * Math.cos(arg);
-                    }
-                }
-            }
-            double value = 0;
-            double magnitude = 0;
-            double gMagnitude = 0;
-            if (d == 2) {
-                int m1 = m[1];
-                for (int a = 0; a < m[0]; a++) {
-                    double inner = 0;
-                    double innerAbs = 0;
-                    double innerD = 0;
-                    int row = a * m1;
-                    for (int b = 0; b < m1; b++) {
-                        double c = weighted[row + b];
-                        inner += c * xs[1][b];
-                        innerAbs += Math.abs(c);
-                        if (g != null) {
-                            innerD += c * dxs[1][b];
-                        }
-                    }
-                    value += xs[0][a] * inner;
-                    magnitude += innerAbs;
-                    if (g != null) {
-                        g[0] += dxs[0][a] * inner;
-                        g[1] += xs[0][a] * innerD;
-                        gMagnitude += innerAbs * (axes[0].mu[a] + axes[1].mu[m1 - 1]);
-                    }
-                }
-            } else {
-                int m1 = m[1];
-                int m2 = m[2];
-                for (int a = 0; a < m[0]; a++) {
-                    for (int b = 0; b < m1; b++) {
-                        int row = (a * m1 + b) * m2;
-                        double inner = 0;
-                        double innerAbs = 0;
-                        double innerD = 0;
-                        for (int c = 0; c < m2; c++) {
-                            double w = weighted[row + c];
-                            inner += w * xs[2][c];
-                            innerAbs += Math.abs(w);
-                            if (g != null) {
-                                innerD += w * dxs[2][c];
-                            }
-                        }
-                        double xy = xs[0][a] * xs[1][b];
-                        value += xy * inner;
-                        magnitude += innerAbs;
-                        if (g != null) {
-                            g[0] += dxs[0][a] * xs[1][b] * inner;
-                            g[1] += xs[0][a] * dxs[1][b] * inner;
-                            g[2] += xy * innerD;
-                            gMagnitude += innerAbs * (axes[0].mu[a] + axes[1].mu[b] + axes[2].mu[m2 - 1]);
-                        }
-                    }
-                }
-            }
-            return new double[] {value, 16 * EPS * magnitude, 16 * EPS * gMagnitude};
+            return sumModes(p, o, hi, g, m, weighted);
         }
 
         private Evaluation initialValue(double[] p, int o) {
@@ -3047,6 +3310,86 @@ public final class TensorSolver implements SpatialSolver {
             }
             return null;
         }
+    }
+
+    /**
+     * sum_J w_J X_J(p), or with {@code hi} not null its mean over the cell from p to hi, over modes
+     * 0..m[i]-1: {value, value rounding bound, gradient rounding bound}; adds the gradient into g if not null.
+     */
+    private double[] sumModes(double[] p, int o, double[] hi, double[] g, int[] m, double[] weighted) {
+        double[][] xs = new double[d][];
+        double[][] dxs = g == null ? null : new double[d][];
+        for (int i = 0; i < d; i++) {
+            AxisModes ax = axes[i];
+            xs[i] = new double[m[i]];
+            if (g != null) {
+                dxs[i] = new double[m[i]];
+            }
+            double x = p[o + i];
+            for (int j = 0; j < m[i]; j++) {
+                double arg = ax.mu[j] * x + ax.phase[j];
+                xs[i][j] = hi == null ? Math.sin(arg) : meanOfMode(ax.mu[j], ax.phase[j], x, hi[i]);
+                if (g != null) {
+                    dxs[i][j] = ax.mu[j] * Math.cos(arg);
+                }
+            }
+        }
+        double value = 0;
+        double magnitude = 0;
+        double gMagnitude = 0;
+        if (d == 2) {
+            int m1 = m[1];
+            for (int a = 0; a < m[0]; a++) {
+                double inner = 0;
+                double innerAbs = 0;
+                double innerD = 0;
+                int row = a * m1;
+                for (int b = 0; b < m1; b++) {
+                    double c = weighted[row + b];
+                    inner += c * xs[1][b];
+                    innerAbs += Math.abs(c);
+                    if (g != null) {
+                        innerD += c * dxs[1][b];
+                    }
+                }
+                value += xs[0][a] * inner;
+                magnitude += innerAbs;
+                if (g != null) {
+                    g[0] += dxs[0][a] * inner;
+                    g[1] += xs[0][a] * innerD;
+                    gMagnitude += innerAbs * (axes[0].mu[a] + axes[1].mu[m1 - 1]);
+                }
+            }
+        } else {
+            int m1 = m[1];
+            int m2 = m[2];
+            for (int a = 0; a < m[0]; a++) {
+                for (int b = 0; b < m1; b++) {
+                    int row = (a * m1 + b) * m2;
+                    double inner = 0;
+                    double innerAbs = 0;
+                    double innerD = 0;
+                    for (int c = 0; c < m2; c++) {
+                        double w = weighted[row + c];
+                        inner += w * xs[2][c];
+                        innerAbs += Math.abs(w);
+                        if (g != null) {
+                            innerD += w * dxs[2][c];
+                        }
+                    }
+                    double xy = xs[0][a] * xs[1][b];
+                    value += xy * inner;
+                    magnitude += innerAbs;
+                    if (g != null) {
+                        g[0] += dxs[0][a] * xs[1][b] * inner;
+                        g[1] += xs[0][a] * dxs[1][b] * inner;
+                        g[2] += xy * innerD;
+                        gMagnitude += innerAbs * (axes[0].mu[a] + axes[1].mu[b] + axes[2].mu[m2 - 1]);
+                    }
+                }
+            }
+        }
+        return new double[] {value, 16 * EPS * magnitude, 16 * EPS * gMagnitude};
     }
 
     /** sum_{j >= from} (j + 1)^power exp(-a j^2), summed to underflow (terms decrease past the peak). */
