@@ -37,6 +37,9 @@ import org.openjdk.jmh.annotations.Warmup;
  * {@code ownSchedules} gives two sides ambients of their own that change in time: x = 0 follows
  * 300 (1 - exp(-t/200)), y = 0 follows 100 (1 - exp(-t/100)) (1 + 5 x); each side term's shape series and
  * two lags are shared among the times, its particular modes are computed once per time.
+ * {@code spotSource} keeps the four convective sides and makes the source a spot peaked in x and y,
+ * 2e5 exp(-((x - 0.06)^2 + (y - 0.04)^2)/4e-4), not a sum of one-coordinate terms: the remainder's
+ * double series joins the steady part (shared among the times) and the transient subtracts its projection.
  *
  * <pre>mvn -q -pl oracle -Pbenchmark test-compile exec:exec -Dbench.args="RectangleBenchmark"</pre>
  */
@@ -51,7 +54,7 @@ public class RectangleBenchmark {
     static final int NY = 250;
     static final int TIMES = 10;
 
-    @Param({"convecting", "insulatedSides", "risingAmbient", "ownSchedules"})
+    @Param({"convecting", "insulatedSides", "risingAmbient", "ownSchedules", "spotSource"})
     String sides;
 
     Problem problem;
@@ -79,7 +82,8 @@ public class RectangleBenchmark {
         }
         return new Problem(new Rectangle(0.2, 0.1), new Material(15, 4e6),
             Expression.parse("20 + 300*x*y", "x", "y"),
-            Expression.parse("2e5*exp(-(x - 0.06)^2/4e-4)", "x", "y", "t"), faces);
+            Expression.parse("spotSource".equals(sides) ? "2e5*exp(-((x - 0.06)^2 + (y - 0.04)^2)/4e-4)"
+                : "2e5*exp(-(x - 0.06)^2/4e-4)", "x", "y", "t"), faces);
     }
 
     static double time(int j) {

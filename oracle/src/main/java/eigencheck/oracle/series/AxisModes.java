@@ -58,6 +58,16 @@ final class AxisModes {
         return (Math.cos(phase[j]) - Math.cos(m * length + phase[j])) / m;
     }
 
+    /** {X_j, dX_j/ds} at end {@code side} (0: x = 0, 1: x = L), s the distance from that end inwards. */
+    double[] atEnd(int j, int side) {
+        double m = mu[j];
+        if (side == 0) {
+            return new double[] {Math.sin(phase[j]), m * Math.cos(phase[j])};
+        }
+        double arg = m * length + phase[j];
+        return new double[] {Math.sin(arg), -m * Math.cos(arg)};
+    }
+
     /** \(\int_0^L x\,X_j\,dx\). */
     double firstMoment(int j) {
         double m = mu[j];

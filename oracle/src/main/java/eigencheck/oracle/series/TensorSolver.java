@@ -123,10 +123,10 @@ public final class TensorSolver implements SpatialSolver {
      * {@code side} ({@link SourceRemainder}), beta the slab solution along the other axis of the source
      * {@code source} (over x_along), with that axis's homogeneous conditions. It leaves faceFactor beta in
      * B-form on its own side (1 on a Dirichlet side, -+k on a flux or convective one, since B = k du/dn + h u
-     * there and B_e psi = 1) and nothing on the others.
+     * there and B_e psi = 1) and nothing on the others; its {@link BlendCorrection} takes that away.
      */
     private record Blend(int axis, int side, double c0, double c1, int along, SlabSolver.Slice slice,
-                         Expression source, double faceFactor) {
+                         Expression source, double faceFactor, BlendCorrection correction) {
         double psi(double x) {
             return c0 + c1 * x;
         }
@@ -978,9 +978,35 @@ public final class TensorSolver implements SpatialSolver {
                 double[] w = remainder.weight(axis, side);
                 double factor = type[axis][side] == DIRICHLET ? 1 : side == 0 ? -k : k;
                 SlabSolver.Slice slice = new SlabSolver(slabProblem(g, along, material), 0, tolerance / (8 * terms)).at(0);
-                blends.add(new Blend(axis, side, w[0], w[1], along, slice, g, factor));
+                blends.add(new Blend(axis, side, w[0], w[1], along, slice, g, factor,
+                    blendCorrection(axis, side, along, g, factor, tolerance * scale / (16 * terms))));
             }
         }
+    }
+
+    /**
+     * The correction of a blend part on its own side ({@link BlendCorrection}): 1024 to 8192 tangential
+     * modes (doubling), the fewest whose tail on the side itself is within {@code budget}; the largest
+     * otherwise (points on and next to the side are then refused with their bound). On a Dirichlet side u
+     * is the data, so 1024 modes serve there (the profiles' exp(-nu s) does the rest off the side).
+     */
+    private BlendCorrection blendCorrection(int axis, int side, int along, Expression g, double factor, double budget) {
+        double[] alongHOverK = new double[2];
+        for (int e = 0; e < 2; e++) {
+            alongHOverK[e] = type[along][e] == DIRICHLET ? Double.POSITIVE_INFINITY : type[along][e] == NEUMANN ? 0
+                : h[along][e] / k;
+        }
+        BlendCorrection c = null;
+        for (int n = Math.max(1024, transientCap); n <= 8192; n *= 2) {
+            double[][] gp = project(point -> g.value(point[along]), new int[] {along}, new int[] {n}, new double[d]);
+            c = new BlendCorrection(axes[along], len[along], alongHOverK, g, gp[0], gp[1][0], len[axis], type[axis][side],
+                h[axis][side], type[axis][1 - side], h[axis][1 - side], k, factor, len[axis]);
+            double[] tails = c.lastTails();
+            if (2 * tails[0] <= budget || type[axis][side] == DIRICHLET) {
+                break;
+            }
+        }
+        return c;
     }
 
     /** The steady slab problem of P along {@code axis}, with that axis's homogeneous face conditions. */
@@ -1379,11 +1405,6 @@ public final class TensorSolver implements SpatialSolver {
                 if (shape == null && sourceSlices[t] != null && type[axis][side] != NEUMANN) {
                     double slope = -sourceSlices[t].heatFlux(point[t]).value() / k;
                     g -= (type[axis][side] == ROBIN ? h[axis][side] : 1) * slope;
-                }
-                for (Blend b : blends) {
-                    if (shape == null && b.axis() == axis && b.side() == side) {
-                        g -= b.faceFactor() * -b.slice().heatFlux(point[t]).value() / k;
-                    }
                 }
                 integral += rule[1][q] * Math.abs(g);
             }
@@ -2061,16 +2082,10 @@ public final class TensorSolver implements SpatialSolver {
         return m;
     }
 
-    /** B_f of the steady parts on a face: the source's slab parts along the other axes (P_i, 0, h P_i on a Dirichlet, flux, convective face) and the blend's parts of this side. */
+    /** B_f of the source's slab parts along the other axes on a face: P_i, 0, h P_i on a Dirichlet, flux, convective face. */
     private double sourcePart(int axis, int side, double[] point) {
-        double blend = 0;
-        for (Blend b : blends) {
-            if (b.axis() == axis && b.side() == side) {
-                blend += b.faceFactor() * b.slice().temperature(point[b.along()]).value();
-            }
-        }
         if (type[axis][side] == NEUMANN) {
-            return blend;
+            return 0;
         }
         double p = 0;
         for (int i = 0; i < d; i++) {
@@ -2078,7 +2093,7 @@ public final class TensorSolver implements SpatialSolver {
                 p += sourceSlices[i].temperature(point[i]).value();
             }
         }
-        return (type[axis][side] == ROBIN ? h[axis][side] * p : p) + blend;
+        return type[axis][side] == ROBIN ? h[axis][side] * p : p;
     }
 
     // ---------------------------------------------------------------- the transient
@@ -2162,6 +2177,20 @@ public final class TensorSolver implements SpatialSolver {
                 double l = len[ax];
                 double psiNorm = Math.sqrt(l * (b.c0() * b.c0() + b.c0() * b.c1() * l + b.c1() * b.c1() * l * l / 3));
                 uNorm += 1.01 * psiNorm * Math.sqrt(beta);
+                // the correction on its side: coef_q (y_q, X_p) / ||X_p||^2 on the modes X_p(x_axis) Y_q(x_along)
+                BlendCorrection bc = b.correction();
+                double profileMax = 0;
+                for (int cIndex = 0; cIndex < count; cIndex++) {
+                    unflatten(cIndex, m, index);
+                    if (index[al] >= bc.modes()) {
+                        throw new IllegalStateException("the transient's box exceeds the blend correction's modes");
+                    }
+                    c[cIndex] -= bc.projection(index[al], axes[ax], index[ax], b.side());
+                    profileMax = Math.max(profileMax, Math.abs(bc.profileProjection(index[al], axes[ax], index[ax],
+                        b.side())));
+                }
+                err += bc.coefficientError() * profileMax;
+                uNorm += bc.norm;
             }
             if (remainder != null) {
                 // W_J = Q_r,J / (k lambda_J), and ||W|| <= ||Q_r|| / (k lambda_min)
@@ -2283,16 +2312,9 @@ public final class TensorSolver implements SpatialSolver {
     private double faceWeight(Face f, Face.Table tb, int faceIndex, int p) {
         AxisModes normal = axes[f.axis];
         double nu = normal.mu[p];
-        double z0;
-        double dz0;
-        if (f.side == 0) {
-            z0 = Math.sin(normal.phase[p]);
-            dz0 = nu * Math.cos(normal.phase[p]);
-        } else {
-            double arg = nu * normal.length + normal.phase[p];
-            z0 = Math.sin(arg);
-            dz0 = -nu * Math.cos(arg);
-        }
+        double[] z = normal.atEnd(p, f.side);
+        double z0 = z[0];
+        double dz0 = z[1];
         double kap = tb.kappa[faceIndex];
         double y0;
         double dy0;
@@ -2760,11 +2782,16 @@ public final class TensorSolver implements SpatialSolver {
                 bound += e.bound();
             }
         }
+        double blendBudget = tolerance * scale / (16 * Math.max(1, blends.size()));
         for (Blend b : blends) {
             Evaluation e = b.slice().temperature(p[o + b.along()]);
             double psi = b.psi(p[o + b.axis()]);
             value += psi * e.value();
             bound += Math.abs(psi) * e.bound() + 2 * EPS * Math.abs(psi * e.value());
+            double s = b.side() == 0 ? p[o + b.axis()] : len[b.axis()] - p[o + b.axis()];
+            double[] c = b.correction().add(p[o + b.along()], s, Double.NaN, Double.NaN, blendBudget, 0, null);
+            value += c[0];
+            bound += c[1];
         }
         if (remainderValues != null) {
             RemainderSeries r = remainderValues;
@@ -3152,6 +3179,7 @@ public final class TensorSolver implements SpatialSolver {
                 g[sourceAxis] += -flux.value() / k;
                 bound += flux.bound() / k;
             }
+            double blendBudget = budget / (16 * Math.max(1, blends.size()));
             for (Blend b : blends) {
                 Evaluation e = b.slice().temperature(p[o + b.along()]);
                 Evaluation flux = b.slice().heatFlux(p[o + b.along()]);
@@ -3159,6 +3187,13 @@ public final class TensorSolver implements SpatialSolver {
                 g[b.axis()] += b.c1() * e.value();
                 g[b.along()] += -psi * flux.value() / k;
                 bound += Math.abs(b.c1()) * e.bound() + Math.abs(psi) * flux.bound() / k;
+                double s = b.side() == 0 ? p[o + b.axis()] : len[b.axis()] - p[o + b.axis()];
+                double[] gc = new double[2];
+                double[] c = b.correction().add(p[o + b.along()], s, Double.NaN, Double.NaN, blendBudget,
+                    blendBudget / lengthScale, gc);
+                g[b.along()] += gc[0];
+                g[b.axis()] += (b.side() == 0 ? 1 : -1) * gc[1];
+                bound += c[2];
             }
             if (remainder != null) {
                 RemainderSeries r = remainderGradients();
@@ -3225,11 +3260,18 @@ public final class TensorSolver implements SpatialSolver {
                     bound += e.bound();
                 }
             }
+            double blendBudget = budget / (16 * Math.max(1, blends.size()));
             for (Blend b : blends) {
                 Evaluation e = b.slice().cellAverage(lo[b.along()], hi[b.along()]);
                 double psi = b.psiMean(lo[b.axis()], hi[b.axis()]);
                 value += psi * e.value();
                 bound += Math.abs(psi) * e.bound() + 2 * EPS * Math.abs(psi * e.value());
+                int a = b.axis();
+                double s0 = b.side() == 0 ? lo[a] : len[a] - hi[a];
+                double s1 = b.side() == 0 ? hi[a] : len[a] - lo[a];
+                double[] c = b.correction().add(lo[b.along()], s0, hi[b.along()], s1, blendBudget, 0, null);
+                value += c[0];
+                bound += c[1];
             }
             if (remainderValues != null) {
                 RemainderSeries r = remainderValues;

@@ -79,6 +79,42 @@ class GeneralSourceTest {
     }
 
     @Test
+    void onEverySideAndInTheCornersWhereTheSideDataVanish() {
+        // u = x (9/7 - x) cos(pi y / 1.6) (1 + y^2) meets u = 0 at x = 0 and y = 0.8, u' + (h/k) u = 0 at x = 1
+        // (h/k = 5/2: (9/7 - 2) + 2.5 (9/7 - 1) = 0) and u' = 0 at y = 0 (calculus): every side's data are zero, so
+        // no face series is needed and a mesh's boundary nodes are certified wherever the blend's corrections reach
+        Expression exact = Expression.parse("x*(9/7 - x)*cos(pi*y/1.6)*(1 + y^2)", "x", "y", "t");
+        Problem derived = Manufactured.cartesian(exact, new Rectangle(1, LY), MATERIAL, kinds(
+            Manufactured.Face.dirichlet(), Manufactured.Face.robin(5), Manufactured.Face.neumann(),
+            Manufactured.Face.dirichlet()));
+        Map<Side, BoundaryCondition> zero = new EnumMap<>(Side.class);
+        zero.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("0", "y", "t")));
+        zero.put(Side.XMAX, new BoundaryCondition.Robin(5, Expression.parse("0", "y", "t")));
+        zero.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        zero.put(Side.YMAX, new BoundaryCondition.Dirichlet(Expression.parse("0", "x", "t")));
+        Problem steady = new Problem(derived.domain(), derived.material(), derived.initial(), derived.source(), zero, true);
+        double tolerance = 1e-10;
+        Oracle o = Oracle.prepare(steady, 0, tolerance);
+        double limit = tolerance * o.temperatureScale();
+        for (int i = 0; i <= 16; i++) {
+            double s = i / 16.0;
+            double[][] onSides = {{0, s * LY}, {1, s * LY}, {s, 0}, {s, LY}, {0.99, s * LY}, {s, 0.004}};
+            for (double[] p : onSides) {
+                // on the Dirichlet sides u is 0 exactly (the expression leaves cos(pi/2) = 6e-17 there)
+                double u = p[0] == 0 || p[1] == LY ? 0 : exact.value(p[0], p[1], 0);
+                assertWithin(u, o.temperature(p, 0), limit, "u at " + p[0] + ", " + p[1]);
+            }
+        }
+        Evaluation corner = o.cellAverage(new double[] {0.9, 0}, new double[] {1, 0.1}, 0);
+        assertWithin(cellMean(exact, 0.9, 0, 0.1, 0), corner, limit, "the corner cell's mean");
+        // the gradient on the convective side, at a tolerance the remainder's gradient series reaches
+        Oracle loose = Oracle.prepare(steady, 0, 1e-7);
+        Evaluation[] g = loose.gradient(new double[] {1, 0.3}, 0);
+        assertWithin(exact.derivative("x").value(1, 0.3, 0), g[0], 1e-7 * loose.temperatureScale(),
+            "du/dx on the convective side");
+    }
+
+    @Test
     void productSourceWithTemperaturesOnEverySide() {
         // u = sin(2xy) + x y^2: Q = k (4 (x^2 + y^2) sin(2xy) - 2x), not a sum of one-coordinate terms
         assertSteadyMatches(Expression.parse("sin(2*x*y) + x*y*y", "x", "y", "t"), kinds(Manufactured.Face.dirichlet(),
