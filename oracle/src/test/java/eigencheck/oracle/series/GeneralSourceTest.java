@@ -189,6 +189,41 @@ class GeneralSourceTest {
     }
 
     @Test
+    void aUniformChangeInTimeAddsToAProductSource() {
+        // superposition (common practice): with zero side data and a zero start, the plate heated by
+        // Q(x, y) + 300 (1 - exp(-2 t)) is the sum of the plate heated by Q alone and by the uniform change alone
+        Map<Side, BoundaryCondition> sides = new EnumMap<>(Side.class);
+        sides.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("0", "y", "t")));
+        sides.put(Side.XMAX, new BoundaryCondition.Robin(5, Expression.parse("0", "y", "t")));
+        sides.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        sides.put(Side.YMAX, new BoundaryCondition.Robin(2, Expression.parse("0", "x", "t")));
+        Expression start = Expression.parse("0", "x", "y");
+        String spot = "400*exp(-((x - 0.6)^2 + (y - 0.5)^2)/0.05)";
+        Problem both = new Problem(new Rectangle(1, LY), MATERIAL, start,
+            Expression.parse(spot + " + 300*(1 - exp(-2*t))", "x", "y", "t"), sides);
+        Problem spotOnly = new Problem(new Rectangle(1, LY), MATERIAL, start, Expression.parse(spot, "x", "y", "t"), sides);
+        Problem change = new Problem(new Rectangle(1, LY), MATERIAL, start,
+            Expression.parse("300*(1 - exp(-2*t))", "x", "y", "t"), sides);
+        double tolerance = 1e-8;
+        Oracle a = Oracle.prepare(both, 1, tolerance);
+        Oracle b = Oracle.prepare(spotOnly, 1, tolerance);
+        Oracle c = Oracle.prepare(change, 1, tolerance);
+        SplittableRandom random = new SplittableRandom(3);
+        for (double t : new double[] {0.2, 1}) {
+            for (int i = 0; i < 15; i++) {
+                double[] p = {random.nextDouble(), random.nextDouble() * LY};
+                Evaluation ua = a.temperature(p, t);
+                Evaluation ub = b.temperature(p, t);
+                Evaluation uc = c.temperature(p, t);
+                double gap = Math.abs(ua.value() - ub.value() - uc.value());
+                assertTrue(gap <= ua.bound() + ub.bound() + uc.bound(), "at " + p[0] + ", " + p[1] + ", t = " + t
+                    + ": the sum misses by " + gap + ", beyond the bounds");
+                assertTrue(ua.bound() <= tolerance * a.temperatureScale(), "bound " + ua.bound());
+            }
+        }
+    }
+
+    @Test
     void theRemainderMeetsTheBlendedConditionsAndItsCoefficientBound() {
         // by construction (I - P_x)(I - P_y) Q vanishes on a Dirichlet side and meets k du/dn + h u = 0 on a
         // flux or convective one; and each computed coefficient lies within the integration-by-parts bound
