@@ -28,6 +28,16 @@ final class BlendCorrection {
     private final int modes;
     /** -F a_n g_n / (k nu_n^2), rho_n, nu_n for n < modes. */
     private final double[] coef;
+    /**
+     * With psi = c0 + c1 x (x along the side's normal axis, {@code side} 0 or 1) not null, the part psi beta
+     * itself joins as a series, g_n psi Y_n / (k nu_n^2): for a side whose tangential pair is insulated, where
+     * beta has no slab (only the zero-mean part of G comes here; its mean goes to a slab along the normal).
+     */
+    private final double[] psi;
+    private final double[] plain;
+    private final int side;
+    private final double[] flatValueTail;
+    private final double[] flatGradientTail;
     private final double[] rho;
     /** Tails without the profile factor, from grid entry i = modes / 2^(levels - 1 - i) on: value and gradient. */
     private final int[] grid;
@@ -48,17 +58,25 @@ final class BlendCorrection {
      */
     BlendCorrection(AxisModes along, double alongLength, double[] alongHOverK, Expression source, double[] g,
                     double error, double depth, int ownType, double ownH, int farType, double farH, double k,
-                    double factor, double otherLength) {
+                    double factor, double otherLength, double[] psi, int side) {
         this.along = along;
         this.depth = depth;
         this.modes = g.length;
+        this.psi = psi == null ? null : psi.clone();
+        this.side = side;
         along.ensure(modes);
         coef = new double[modes];
         rho = new double[modes];
+        plain = new double[modes];
+        double psiMax = psi == null ? 0 : Math.max(Math.abs(psi[0]), Math.abs(psi[0] + psi[1] * depth));
+        double psiSlope = psi == null ? 0 : Math.abs(psi[1]);
         double[] errorWeight = new double[modes];
         double normSum = 0;
         for (int n = 0; n < modes; n++) {
             double nu = along.mu[n];
+            if (nu == 0) {
+                continue; // the constant mode of an insulated pair: G's mean, which a slab along the normal takes
+            }
             rho[n] = switch (farType) {
                 case 0 -> -1;
                 case 1 -> 1;
@@ -74,9 +92,11 @@ final class BlendCorrection {
             };
             double w = -factor / (b * k * nu * nu);
             coef[n] = w * g[n];
-            errorWeight[n] = Math.abs(w) * 2;
+            errorWeight[n] = Math.abs(w) * 2 + psiMax / (k * nu * nu);
+            plain[n] = psi == null ? 0 : g[n] / (k * nu * nu);
             // ||Y_n y_n|| <= sqrt(L/2 + L/2) sqrt(2/nu) (|Y| <= 1, |y_n| <= exp(-nu s) + exp(-nu (2D - s)))
-            normSum += Math.abs(coef[n]) * Math.sqrt(alongLength) * Math.sqrt(2 / nu) + errorWeight[n] * error;
+            normSum += Math.abs(coef[n]) * Math.sqrt(alongLength) * Math.sqrt(2 / nu) + errorWeight[n] * error
+                + Math.abs(plain[n]) * psiMax * Math.sqrt(alongLength * depth);
         }
         this.norm = normSum * Math.sqrt(1 + otherLength);
         double worst = 0;
@@ -98,8 +118,12 @@ final class BlendCorrection {
         int far = 64 * modes;
         double[] suffixV = new double[levels];
         double[] suffixG = new double[levels];
+        double[] flatV = new double[levels];
+        double[] flatG = new double[levels];
         double runV = 0;
         double runG = 0;
+        double runFlatV = 0;
+        double runFlatG = 0;
         int next = levels - 1;
         double pil = Math.PI / alongLength;
         for (int n = far - 1; n >= 16; n--) {
@@ -108,9 +132,16 @@ final class BlendCorrection {
                 / (normLower * k * nu * nu);
             runV += t;
             runG += 2 * nu * t;
+            if (psi != null) {
+                double plainBound = coefficientBound(c, nu) / (normLower * k * nu * nu);
+                runFlatV += psiMax * plainBound;
+                runFlatG += (psiMax * nu + psiSlope) * plainBound;
+            }
             if (next >= 0 && n == grid[next]) {
                 suffixV[next] = runV;
                 suffixG[next] = runG;
+                flatV[next] = runFlatV;
+                flatG[next] = runFlatG;
                 next--;
             }
         }
@@ -121,6 +152,15 @@ final class BlendCorrection {
         double farV = a * (c[0] * Math.pow(l, 3) / (2.0 * Math.pow(far - 1, 2)) + (c[1] + c[2]) * Math.pow(l, 4)
             / (3.0 * Math.pow(far - 1, 3)));
         double farG = 2 * a * (c[0] * l * l / (far - 1.0) + (c[1] + c[2]) * Math.pow(l, 3) / (2.0 * Math.pow(far - 1, 2)));
+        // the psi part beyond 64 modes: (nu E0 + E1 + ||G''||_1) / nu^2 over k nu^2, times max |psi| (and nu, |psi'|)
+        double b0 = 1 / (normLower * k);
+        double flatFarV = psiMax * b0 * (c[0] * Math.pow(l, 3) / (2.0 * Math.pow(far - 1, 2)) + (c[1] + c[2])
+            * Math.pow(l, 4) / (3.0 * Math.pow(far - 1, 3)));
+        double flatFarG = psiMax * b0 * (c[0] * l * l / (far - 1.0) + (c[1] + c[2]) * Math.pow(l, 3)
+            / (2.0 * Math.pow(far - 1, 2))) + psiSlope * b0 * (c[0] * Math.pow(l, 3) / (2.0 * Math.pow(far - 1, 2))
+            + (c[1] + c[2]) * Math.pow(l, 4) / (3.0 * Math.pow(far - 1, 3)));
+        flatValueTail = new double[levels];
+        flatGradientTail = new double[levels];
         valueTail = new double[levels];
         gradientTail = new double[levels];
         valueError = new double[levels];
@@ -128,6 +168,8 @@ final class BlendCorrection {
         for (int i = 0; i < levels; i++) {
             valueTail[i] = suffixV[i] + farV;
             gradientTail[i] = suffixG[i] + farG;
+            flatValueTail[i] = psi == null ? 0 : flatV[i] + flatFarV;
+            flatGradientTail[i] = psi == null ? 0 : flatG[i] + flatFarG;
             double ev = 0;
             double eg = 0;
             for (int n = 0; n < grid[i]; n++) {
@@ -202,13 +244,21 @@ final class BlendCorrection {
      */
     double[] add(double y, double s, double tangentialHi, double sHi, double budget, double gradientBudget,
                  double[] grad) {
+        // psi at the point (or its mean over the cell), x from the side's own end: s = x or D - x
+        double psiHere = 0;
+        if (psi != null) {
+            double x0 = side == 0 ? s : depth - s;
+            double x1 = Double.isNaN(sHi) ? x0 : side == 0 ? sHi : depth - sHi;
+            psiHere = psi[0] + psi[1] * 0.5 * (x0 + x1);
+        }
         boolean mean = !Double.isNaN(tangentialHi);
         double sNear = Math.max(0, s);
         int choice = grid.length - 1;
         for (int i = 0; i < grid.length; i++) {
             double nu = along.mu[grid[i] - 1];
             double profile = Math.exp(-nu * sNear) + Math.exp(-nu * (2 * depth - sNear));
-            if (profile * valueTail[i] <= budget && (grad == null || profile * gradientTail[i] <= gradientBudget)) {
+            if (profile * valueTail[i] + flatValueTail[i] <= budget
+                && (grad == null || profile * gradientTail[i] + flatGradientTail[i] <= gradientBudget)) {
                 choice = i;
                 break;
             }
@@ -222,6 +272,9 @@ final class BlendCorrection {
         double gs = 0;
         for (int j = 0; j < n; j++) {
             double nu = along.mu[j];
+            if (nu == 0) {
+                continue;
+            }
             double ph = along.phase[j];
             double ym = mean ? TensorSolver.meanOfMode(nu, ph, y, tangentialHi) : Math.sin(nu * y + ph);
             double p;
@@ -236,20 +289,22 @@ final class BlendCorrection {
                 p = e1 + e2;
                 dp = nu * (-e1 + e2);
             }
-            double term = coef[j] * ym * p;
+            double term = coef[j] * ym * p + plain[j] * ym * psiHere;
             value += term;
             magnitude += Math.abs(term);
             if (grad != null) {
-                gy += coef[j] * nu * Math.cos(nu * y + ph) * p;
-                gs += coef[j] * Math.sin(nu * y + ph) * dp;
+                gy += (coef[j] * p + plain[j] * psiHere) * nu * Math.cos(nu * y + ph);
+                // d/ds of psi: psi' ds/dx with ds/dx = +-1, so the caller's d/dx = (+-1) d/ds gives psi'
+                double psiS = psi == null ? 0 : psi[1] * (side == 0 ? 1 : -1);
+                gs += (coef[j] * dp + plain[j] * psiS) * Math.sin(nu * y + ph);
             }
         }
         if (grad != null) {
             grad[0] += gy;
             grad[1] += gs;
         }
-        double bound = profileN * valueTail[choice] + valueError[choice] + 16 * EPS * magnitude;
-        double gradientBound = profileN * gradientTail[choice] + gradientError[choice]
+        double bound = profileN * valueTail[choice] + flatValueTail[choice] + valueError[choice] + 16 * EPS * magnitude;
+        double gradientBound = profileN * gradientTail[choice] + flatGradientTail[choice] + gradientError[choice]
             + 16 * EPS * magnitude * 2 * along.mu[n - 1];
         return new double[] {value, bound, gradientBound};
     }
@@ -264,7 +319,7 @@ final class BlendCorrection {
 
     /** As {@link #projection} for a unit coefficient. */
     double profileProjection(int q, AxisModes normal, int p, int side) {
-        if (q >= modes) {
+        if (q >= modes || along.mu[q] == 0) {
             return 0;
         }
         double mu = normal.mu[p];
@@ -278,6 +333,11 @@ final class BlendCorrection {
         return (y0 * dz0 - dy0 * z0) / ((nu * nu + mu * mu) * normal.norm[p]);
     }
 
+    /** g_q / (k nu_q^2), the psi part's coefficient of mode q (0 without a psi part or beyond the coefficients). */
+    double plain(int q) {
+        return q >= modes ? 0 : plain[q];
+    }
+
     /** The largest error of a coefficient coef_q (from the projections of G). */
     double coefficientError() {
         return maxCoefficientError;
@@ -288,8 +348,14 @@ final class BlendCorrection {
         return modes;
     }
 
+    /** The psi part's truncation bound of the whole table (value), which no profile decays. */
+    double lastFlatTail() {
+        return flatValueTail[grid.length - 1];
+    }
+
     /** The truncation bound, without the profile factor, of the whole table (value, gradient). */
     double[] lastTails() {
-        return new double[] {valueTail[grid.length - 1], gradientTail[grid.length - 1]};
+        int last = grid.length - 1;
+        return new double[] {valueTail[last] + flatValueTail[last], gradientTail[last] + flatGradientTail[last]};
     }
 }

@@ -9,7 +9,7 @@ import org.apache.commons.math3.analysis.differentiation.DerivativeStructure;
  * the two ends e of the x axis, B_e the end's own condition as the modes meet it (the value on a
  * Dirichlet side, \(f' \mp (h/k) f\) on a flux or convective one) and psi_e linear with
  * \(B_{e'} \psi_e = \delta_{e e'}\); likewise P_y. An axis whose two sides are both insulated or
- * flux-driven, or whose crossing axis is, is not blended (no linear psi meets two flux ends).
+ * flux-driven is not blended (no linear psi meets two flux ends).
  * <ul>
  * <li>S is a sum of products of a linear function and a function of the other coordinate, whose
  * steady solutions are psi(x) beta(y) with beta a slab solution (-k Laplace(psi beta) = psi G, since
@@ -24,8 +24,8 @@ import org.apache.commons.math3.analysis.differentiation.DerivativeStructure;
  * \(\langle f, X\rangle = -[f X' - f' X]/\mu^2 + [f'' X' - f''' X]/\mu^4 + \langle f'''', X\rangle/\mu^4\),
  * so \(|\langle f, X\rangle| \le (E_1 + \|f''\|_1)/\mu^2\) (level 1) and
  * \(\le E_1/\mu^2 + E_{2D}/\mu^3 + (E_{2N} + \|f''''\|_1)/\mu^4\) (level 2), with E_1 the sum of
- * |B_e f| over the flux and convective ends (0 on a blended axis; a Dirichlet end of an axis that is
- * not blended is refused by the caller), E_2D of |f''| over the Dirichlet ends, E_2N of |B_e f''|
+ * |B_e f| over the flux and convective ends (0 on a blended axis; an axis that is not blended has
+ * flux ends only), E_2D of |f''| over the Dirichlet ends, E_2N of |B_e f''|
  * over the others; the constant mode (level 0) takes \(\|f\|_1\). In 2D each level of x is applied to
  * \(F(x) = \langle Q_r(x, \cdot), Y\rangle\) and each level of y to every seminorm that leaves, which
  * gives \(|\langle Q_r, X Y\rangle| \le \sum C_{\kappa\tau} \mu^{-p_\kappa} \nu^{-q_\tau}\) with C
@@ -80,7 +80,7 @@ final class SourceRemainder {
             pairInsulated[i] = hOverK[i][0] == 0 && hOverK[i][1] == 0;
         }
         for (int i = 0; i < 2; i++) {
-            blended[i] = !pairInsulated[i] && !pairInsulated[1 - i];
+            blended[i] = !pairInsulated[i];
             if (blended[i]) {
                 weight[i] = blendWeights(i);
             }

@@ -796,23 +796,13 @@ public final class TensorSolver implements SpatialSolver {
     /**
      * The blend and remainder of a rectangle's source that is not additive ({@link SourceRemainder}).
      * Refused when the source may be non-smooth (the bound of the remainder's coefficients rests on
-     * smoothness), or when a blend's slab would run along a pair of insulated or flux-driven sides.
+     * smoothness).
      */
     private SourceRemainder remainderOf(Expression q) {
         if (q.mayBeNonSmooth()) {
             throw new OracleException(Reason.UNSUPPORTED, "source: varies along x and y, is not a sum of terms of"
                 + " one coordinate each, and may be non-smooth (abs, min, max or a step); this version takes such a"
                 + " source when it is smooth: write it without them, or use a manufactured solution");
-        }
-        for (int axis = 0; axis < 2; axis++) {
-            boolean held = type[axis][0] == DIRICHLET || type[axis][1] == DIRICHLET;
-            if (held && axes[1 - axis].zero) {
-                throw new OracleException(Reason.UNSUPPORTED, "source: varies along x and y and is not a sum of"
-                    + " terms of one coordinate each; with a temperature on a side normal to " + NAMES[axis]
-                    + " and both sides normal to " + NAMES[1 - axis] + " insulated or flux-driven, this version"
-                    + " takes only a source that is such a sum; give a side normal to " + NAMES[1 - axis]
-                    + " convection or a temperature, or use a manufactured solution");
-            }
         }
         Expression qxy = q.variables().contains("t") ? q.substitute("t", 0) : q;
         double[][] hOverK = new double[2][2];
@@ -977,11 +967,36 @@ public final class TensorSolver implements SpatialSolver {
                 }
                 double[] w = remainder.weight(axis, side);
                 double factor = type[axis][side] == DIRICHLET ? 1 : side == 0 ? -k : k;
+                double budget = tolerance * scale / (16 * terms);
+                if (axes[along].zero) {
+                    // the tangential pair is insulated: G's mean m goes to the slab of psi(x) m along the normal
+                    // (constant along the side, it meets every condition); its zero-mean rest is a series
+                    double mean = meanOf(g, along);
+                    Expression rest = g.linear(1, Expression.constant(1, NAMES[along]), -mean);
+                    Expression linear = Expression.constant(w[0] * mean, NAMES[axis])
+                        .linear(1, Expression.parse(NAMES[axis], NAMES[axis]), w[1] * mean);
+                    SlabSolver.Slice slice = new SlabSolver(slabProblem(linear, axis, material), 0,
+                        tolerance / (8 * terms)).at(0);
+                    blends.add(new Blend(along, 0, 1, 0, axis, slice, linear, 0, null));
+                    blends.add(new Blend(axis, side, w[0], w[1], along, null, rest, factor,
+                        blendCorrection(axis, side, along, rest, factor, budget, w)));
+                    continue;
+                }
                 SlabSolver.Slice slice = new SlabSolver(slabProblem(g, along, material), 0, tolerance / (8 * terms)).at(0);
                 blends.add(new Blend(axis, side, w[0], w[1], along, slice, g, factor,
-                    blendCorrection(axis, side, along, g, factor, tolerance * scale / (16 * terms))));
+                    blendCorrection(axis, side, along, g, factor, budget, null)));
             }
         }
+    }
+
+    /** The mean of an expression of one coordinate over its axis, by a 2048-point Gauss rule. */
+    private double meanOf(Expression g, int axis) {
+        double[][] r = GaussLegendre.onInterval(2048, len[axis]);
+        double sum = 0;
+        for (int q = 0; q < 2048; q++) {
+            sum += r[1][q] * g.value(r[0][q]);
+        }
+        return sum / len[axis];
     }
 
     /**
@@ -990,7 +1005,8 @@ public final class TensorSolver implements SpatialSolver {
      * otherwise (points on and next to the side are then refused with their bound). On a Dirichlet side u
      * is the data, so 1024 modes serve there (the profiles' exp(-nu s) does the rest off the side).
      */
-    private BlendCorrection blendCorrection(int axis, int side, int along, Expression g, double factor, double budget) {
+    private BlendCorrection blendCorrection(int axis, int side, int along, Expression g, double factor, double budget,
+                                            double[] psi) {
         double[] alongHOverK = new double[2];
         for (int e = 0; e < 2; e++) {
             alongHOverK[e] = type[along][e] == DIRICHLET ? Double.POSITIVE_INFINITY : type[along][e] == NEUMANN ? 0
@@ -1000,9 +1016,9 @@ public final class TensorSolver implements SpatialSolver {
         for (int n = Math.max(1024, transientCap); n <= 8192; n *= 2) {
             double[][] gp = project(point -> g.value(point[along]), new int[] {along}, new int[] {n}, new double[d]);
             c = new BlendCorrection(axes[along], len[along], alongHOverK, g, gp[0], gp[1][0], len[axis], type[axis][side],
-                h[axis][side], type[axis][1 - side], h[axis][1 - side], k, factor, len[axis]);
+                h[axis][side], type[axis][1 - side], h[axis][1 - side], k, factor, len[axis], psi, side);
             double[] tails = c.lastTails();
-            if (2 * tails[0] <= budget || type[axis][side] == DIRICHLET) {
+            if (2 * tails[0] <= budget || type[axis][side] == DIRICHLET && 2 * c.lastFlatTail() <= budget) {
                 break;
             }
         }
@@ -2162,23 +2178,31 @@ public final class TensorSolver implements SpatialSolver {
                 for (int cIndex = 0; cIndex < count; cIndex++) {
                     unflatten(cIndex, m, index);
                     double nu = axes[al].mu[index[al]];
+                    if (nu == 0) {
+                        continue; // the zero-mean rest of an insulated pair's G (its mean went to a slab)
+                    }
                     double w = psi[index[ax]] / (k * nu * nu);
                     c[cIndex] -= gb[0][index[al]] * w;
                     weightMax = Math.max(weightMax, Math.abs(w));
                 }
                 err += gb[1][0] * weightMax;
-                double[][] r = GaussLegendre.onInterval(64, len[al]);
-                double beta = 0;
-                for (int i = 0; i < 64; i++) {
-                    Evaluation e = b.slice().temperature(r[0][i]);
-                    double v = Math.abs(e.value()) + e.bound();
-                    beta += r[1][i] * v * v;
+                if (b.slice() != null) {
+                    double[][] r = GaussLegendre.onInterval(64, len[al]);
+                    double beta = 0;
+                    for (int i = 0; i < 64; i++) {
+                        Evaluation e = b.slice().temperature(r[0][i]);
+                        double v = Math.abs(e.value()) + e.bound();
+                        beta += r[1][i] * v * v;
+                    }
+                    double l = len[ax];
+                    double psiNorm = Math.sqrt(l * (b.c0() * b.c0() + b.c0() * b.c1() * l + b.c1() * b.c1() * l * l / 3));
+                    uNorm += 1.01 * psiNorm * Math.sqrt(beta);
                 }
-                double l = len[ax];
-                double psiNorm = Math.sqrt(l * (b.c0() * b.c0() + b.c0() * b.c1() * l + b.c1() * b.c1() * l * l / 3));
-                uNorm += 1.01 * psiNorm * Math.sqrt(beta);
                 // the correction on its side: coef_q (y_q, X_p) / ||X_p||^2 on the modes X_p(x_axis) Y_q(x_along)
                 BlendCorrection bc = b.correction();
+                if (bc == null) {
+                    continue;
+                }
                 double profileMax = 0;
                 for (int cIndex = 0; cIndex < count; cIndex++) {
                     unflatten(cIndex, m, index);
@@ -2784,14 +2808,18 @@ public final class TensorSolver implements SpatialSolver {
         }
         double blendBudget = tolerance * scale / (16 * Math.max(1, blends.size()));
         for (Blend b : blends) {
-            Evaluation e = b.slice().temperature(p[o + b.along()]);
-            double psi = b.psi(p[o + b.axis()]);
-            value += psi * e.value();
-            bound += Math.abs(psi) * e.bound() + 2 * EPS * Math.abs(psi * e.value());
-            double s = b.side() == 0 ? p[o + b.axis()] : len[b.axis()] - p[o + b.axis()];
-            double[] c = b.correction().add(p[o + b.along()], s, Double.NaN, Double.NaN, blendBudget, 0, null);
-            value += c[0];
-            bound += c[1];
+            if (b.slice() != null) {
+                Evaluation e = b.slice().temperature(p[o + b.along()]);
+                double psi = b.psi(p[o + b.axis()]);
+                value += psi * e.value();
+                bound += Math.abs(psi) * e.bound() + 2 * EPS * Math.abs(psi * e.value());
+            }
+            if (b.correction() != null) {
+                double s = b.side() == 0 ? p[o + b.axis()] : len[b.axis()] - p[o + b.axis()];
+                double[] c = b.correction().add(p[o + b.along()], s, Double.NaN, Double.NaN, blendBudget, 0, null);
+                value += c[0];
+                bound += c[1];
+            }
         }
         if (remainderValues != null) {
             RemainderSeries r = remainderValues;
@@ -3181,12 +3209,17 @@ public final class TensorSolver implements SpatialSolver {
             }
             double blendBudget = budget / (16 * Math.max(1, blends.size()));
             for (Blend b : blends) {
-                Evaluation e = b.slice().temperature(p[o + b.along()]);
-                Evaluation flux = b.slice().heatFlux(p[o + b.along()]);
-                double psi = b.psi(p[o + b.axis()]);
-                g[b.axis()] += b.c1() * e.value();
-                g[b.along()] += -psi * flux.value() / k;
-                bound += Math.abs(b.c1()) * e.bound() + Math.abs(psi) * flux.bound() / k;
+                if (b.slice() != null) {
+                    Evaluation e = b.slice().temperature(p[o + b.along()]);
+                    Evaluation flux = b.slice().heatFlux(p[o + b.along()]);
+                    double psi = b.psi(p[o + b.axis()]);
+                    g[b.axis()] += b.c1() * e.value();
+                    g[b.along()] += -psi * flux.value() / k;
+                    bound += Math.abs(b.c1()) * e.bound() + Math.abs(psi) * flux.bound() / k;
+                }
+                if (b.correction() == null) {
+                    continue;
+                }
                 double s = b.side() == 0 ? p[o + b.axis()] : len[b.axis()] - p[o + b.axis()];
                 double[] gc = new double[2];
                 double[] c = b.correction().add(p[o + b.along()], s, Double.NaN, Double.NaN, blendBudget,
@@ -3262,10 +3295,15 @@ public final class TensorSolver implements SpatialSolver {
             }
             double blendBudget = budget / (16 * Math.max(1, blends.size()));
             for (Blend b : blends) {
-                Evaluation e = b.slice().cellAverage(lo[b.along()], hi[b.along()]);
-                double psi = b.psiMean(lo[b.axis()], hi[b.axis()]);
-                value += psi * e.value();
-                bound += Math.abs(psi) * e.bound() + 2 * EPS * Math.abs(psi * e.value());
+                if (b.slice() != null) {
+                    Evaluation e = b.slice().cellAverage(lo[b.along()], hi[b.along()]);
+                    double psi = b.psiMean(lo[b.axis()], hi[b.axis()]);
+                    value += psi * e.value();
+                    bound += Math.abs(psi) * e.bound() + 2 * EPS * Math.abs(psi * e.value());
+                }
+                if (b.correction() == null) {
+                    continue;
+                }
                 int a = b.axis();
                 double s0 = b.side() == 0 ? lo[a] : len[a] - hi[a];
                 double s1 = b.side() == 0 ? hi[a] : len[a] - lo[a];
