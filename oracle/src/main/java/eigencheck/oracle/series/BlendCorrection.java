@@ -310,14 +310,15 @@ final class BlendCorrection {
     }
 
     /**
-     * The correction's projection on X_p(normal) Y_q(along) over ||X_p||^2 ||Y_q||^2: coef_q (y_q, X_p) /
-     * ||X_p||^2 by Green's identity (both meet the far side's condition); 0 for q beyond the coefficients.
+     * The correction's coefficient of tangential mode q, coef_q; its projection on X_p(normal) Y_q(along) over
+     * ||X_p||^2 ||Y_q||^2 is coef_q (y_q, X_p) / ||X_p||^2 by Green's identity (both meet the far side's
+     * condition); 0 for q beyond the coefficients.
      */
-    double projection(int q, AxisModes normal, int p, int side) {
-        return q >= modes ? 0 : coef[q] * profileProjection(q, normal, p, side);
+    double coefficient(int q) {
+        return q >= modes ? 0 : coef[q];
     }
 
-    /** As {@link #projection} for a unit coefficient. */
+    /** (y_q, X_p) / ||X_p||^2 for a unit coefficient; the projection is {@link #coefficient} times it. */
     double profileProjection(int q, AxisModes normal, int p, int side) {
         if (q >= modes || along.mu[q] == 0) {
             return 0;

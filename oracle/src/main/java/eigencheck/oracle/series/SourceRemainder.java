@@ -47,6 +47,17 @@ final class SourceRemainder {
     private final Expression[][] dq = new Expression[2][2];
     /** d^(ox+oy) Q at the corners, [ex][ey][ox][oy] for orders <= 1. */
     private final double[][][][] corners = new double[2][2][2][2];
+    /** The end operators, [axis][end], made in the constructor (the per-point paths read them). */
+    private final double[][][][] operators = new double[2][2][][];
+    /** The plain derivative of each order as an operator {orders, coefficients}. */
+    private static final double[][][] PLAIN = new double[ORDER + 1][][];
+
+    static {
+        for (int o = 0; o <= ORDER; o++) {
+            PLAIN[o] = new double[][] {{o}, {1}};
+        }
+    }
+
     /** Per axis, the seminorm kinds and the levels built from them. */
     private final Kind[][] kinds = new Kind[2][];
     private final int[][][] levelKinds = new int[2][3][];
@@ -78,6 +89,10 @@ final class SourceRemainder {
                 dirichlet[i][s] = hOverK[i][s] == Double.POSITIVE_INFINITY;
             }
             pairInsulated[i] = hOverK[i][0] == 0 && hOverK[i][1] == 0;
+            for (int s = 0; s < 2; s++) {
+                operators[i][s] = dirichlet[i][s] ? new double[][] {{0}, {1}}
+                    : new double[][] {{1, 0}, {1, (s == 0 ? -1 : 1) * hOverK[i][s]}};
+            }
         }
         for (int i = 0; i < 2; i++) {
             blended[i] = !pairInsulated[i];
@@ -135,12 +150,9 @@ final class SourceRemainder {
         return blended[axis];
     }
 
-    /** The end operator of an axis's end as {orders, coefficients}: f, or f' -+ (h/k) f. */
+    /** The end operator of an axis's end as {orders, coefficients}: f, or f' -+ (h/k) f (shared, not to be changed). */
     private double[][] endOperator(int axis, int end) {
-        if (dirichlet[axis][end]) {
-            return new double[][] {{0}, {1}};
-        }
-        return new double[][] {{1, 0}, {1, (end == 0 ? -1 : 1) * hOverK[axis][end]}};
+        return operators[axis][end];
     }
 
     /** psi_0 and psi_1 of a blended axis: the columns of the inverse of [B_e applied to (1, x)]. */
@@ -192,8 +204,9 @@ final class SourceRemainder {
     }
 
     /** Q_r at points, with what depends on x alone kept between calls. Not for several threads. */
-    final class Sampler {
+    final class Sampler implements Lookup {
         private double lastX = Double.NaN;
+        private double own;
         private final double[][][] yEnds = new double[2][2][2];
         private final double[][][] xEnds = new double[2][2][2];
 
@@ -211,16 +224,18 @@ final class SourceRemainder {
             }
             if (blended[0]) {
                 for (int e = 0; e < 2; e++) {
-                    for (int oy = 0; oy < 1; oy++) {
-                        for (int ox = 0; ox < 2; ox++) {
-                            xEnds[e][ox][oy] = dirichlet[0][e] && ox == 1 ? 0 : dq[ox][oy].value(e == 0 ? 0 : len[0], y);
-                        }
+                    for (int ox = 0; ox < 2; ox++) {
+                        xEnds[e][ox][0] = dirichlet[0][e] && ox == 1 ? 0 : dq[ox][0].value(e == 0 ? 0 : len[0], y);
                     }
                 }
             }
-            double own = source.value(x, y);
-            return derivative(0, 0, x, y, (ix, iy, ox, oy) -> ix < 0 && iy < 0 ? own
-                : ix < 0 ? yEnds[iy][ox][oy] : iy < 0 ? xEnds[ix][ox][oy] : corners[ix][iy][ox][oy]);
+            own = source.value(x, y);
+            return derivative(0, 0, x, y, this);
+        }
+
+        @Override
+        public double at(int ix, int iy, int ox, int oy) {
+            return ix < 0 && iy < 0 ? own : ix < 0 ? yEnds[iy][ox][oy] : iy < 0 ? xEnds[ix][ox][oy] : corners[ix][iy][ox][oy];
         }
     }
 
@@ -239,7 +254,7 @@ final class SourceRemainder {
             if (ix < 0) {
                 fx = 1;
                 xi = x;
-                opx = new double[][] {{a}, {1}};
+                opx = PLAIN[a];
             } else {
                 if (!blended[0] || a >= 2) {
                     continue;
@@ -256,7 +271,7 @@ final class SourceRemainder {
                 if (iy < 0) {
                     fy = 1;
                     yi = y;
-                    opy = new double[][] {{b}, {1}};
+                    opy = PLAIN[b];
                 } else {
                     if (!blended[1] || b >= 2) {
                         continue;

@@ -857,7 +857,7 @@ public final class TensorSolver implements SpatialSolver {
                 }
             }
             remainderGradients = chosen == m && remainderValues.gradientBound() <= budget ? remainderValues
-                : remainderSeries(chosen, chosen == m ? remainder.tails(axes, m, k) : tails, true);
+                : remainderSeries(chosen, tails, true);
         }
         return remainderGradients;
     }
@@ -2209,9 +2209,9 @@ public final class TensorSolver implements SpatialSolver {
                     if (index[al] >= bc.modes()) {
                         throw new IllegalStateException("the transient's box exceeds the blend correction's modes");
                     }
-                    c[cIndex] -= bc.projection(index[al], axes[ax], index[ax], b.side());
-                    profileMax = Math.max(profileMax, Math.abs(bc.profileProjection(index[al], axes[ax], index[ax],
-                        b.side())));
+                    double unit = bc.profileProjection(index[al], axes[ax], index[ax], b.side());
+                    c[cIndex] -= bc.coefficient(index[al]) * unit;
+                    profileMax = Math.max(profileMax, Math.abs(unit));
                 }
                 err += bc.coefficientError() * profileMax;
                 uNorm += bc.norm;
