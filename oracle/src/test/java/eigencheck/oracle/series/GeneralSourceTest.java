@@ -31,7 +31,7 @@ class GeneralSourceTest {
     private static final double LY = 0.8;
     private static final Material MATERIAL = new Material(2, 3);
 
-    private static Map<Side, Manufactured.Face> kinds(Manufactured.Face xmin, Manufactured.Face xmax,
+    static Map<Side, Manufactured.Face> kinds(Manufactured.Face xmin, Manufactured.Face xmax,
                                                       Manufactured.Face ymin, Manufactured.Face ymax) {
         Map<Side, Manufactured.Face> m = new EnumMap<>(Side.class);
         m.put(Side.XMIN, xmin);
@@ -47,7 +47,7 @@ class GeneralSourceTest {
     }
 
     /** The mean of u over [x0, x0 + w] x [y0, y0 + w] by a 5 x 5 Gauss rule (exact to 1e-13 for these u). */
-    private static double cellMean(Expression u, double x0, double y0, double w, double t) {
+    static double cellMean(Expression u, double x0, double y0, double w, double t) {
         double[] nodes = {-0.9061798459386640, -0.5384693101056831, 0, 0.5384693101056831, 0.9061798459386640};
         double[] weights = {0.2369268850561891, 0.4786286704993665, 0.5688888888888889, 0.4786286704993665,
             0.2369268850561891};

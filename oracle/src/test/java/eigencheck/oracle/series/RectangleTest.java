@@ -303,12 +303,12 @@ class RectangleTest {
         OracleException e = assertThrows(OracleException.class, () -> Oracle.prepare(timed, 1, 1e-8));
         assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
         assertTrue(e.getMessage().startsWith("boundary.xmin: changes in time in a way that is not a sum"), e.getMessage());
-        // a source that is not a sum of one-coordinate terms is taken (GeneralSourceTest), one that changes
-        // in time other than uniformly is not
+        // a source that is not a sum of one-coordinate terms is taken (GeneralSourceTest), and one that changes
+        // in time by a few terms (shape) x (schedule) (SourceChangeTest); a spot that moves is not
         Problem source = new Problem(new Rectangle(1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y"),
-            xy("x*y*(1 + t)"), faces(zero, zero, zero, zero));
+            xy("exp(-((x - 0.3*t)^2 + (y - 0.5)^2)/0.02)"), faces(zero, zero, zero, zero));
         e = assertThrows(OracleException.class, () -> Oracle.prepare(source, 1, 1e-8));
         assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
-        assertTrue(e.getMessage().startsWith("source: changes in time"), e.getMessage());
+        assertTrue(e.getMessage().startsWith("source: changes in time in a way that is not a sum"), e.getMessage());
     }
 }
