@@ -40,6 +40,9 @@ import org.openjdk.jmh.annotations.Warmup;
  * {@code spotSource} keeps the four convective sides and makes the source a spot peaked in x and y,
  * 2e5 exp(-((x - 0.06)^2 + (y - 0.04)^2)/4e-4), not a sum of one-coordinate terms: the remainder's
  * double series joins the steady part (shared among the times) and the transient subtracts its projection.
+ * {@code switchedSpot} switches that spot on, 2e5 exp(...) (1 - exp(-t/120)), from a plate with no
+ * source at t = 0: one term shape x schedule, whose steady response V is shared among the times and whose
+ * modes -V_J E_J(t) are computed once per time.
  *
  * <pre>mvn -q -pl oracle -Pbenchmark test-compile exec:exec -Dbench.args="RectangleBenchmark"</pre>
  */
@@ -54,7 +57,7 @@ public class RectangleBenchmark {
     static final int NY = 250;
     static final int TIMES = 10;
 
-    @Param({"convecting", "insulatedSides", "risingAmbient", "ownSchedules", "spotSource"})
+    @Param({"convecting", "insulatedSides", "risingAmbient", "ownSchedules", "spotSource", "switchedSpot"})
     String sides;
 
     Problem problem;
@@ -83,6 +86,7 @@ public class RectangleBenchmark {
         return new Problem(new Rectangle(0.2, 0.1), new Material(15, 4e6),
             Expression.parse("20 + 300*x*y", "x", "y"),
             Expression.parse("spotSource".equals(sides) ? "2e5*exp(-((x - 0.06)^2 + (y - 0.04)^2)/4e-4)"
+                : "switchedSpot".equals(sides) ? "2e5*exp(-((x - 0.06)^2 + (y - 0.04)^2)/4e-4)*(1 - exp(-t/120))"
                 : "2e5*exp(-(x - 0.06)^2/4e-4)", "x", "y", "t"), faces);
     }
 

@@ -443,7 +443,7 @@ public final class TensorSolver implements SpatialSolver {
     /**
      * One term theta(t) phi(x) of the source's change: its schedule, and V (-k Laplace V = phi under the
      * homogeneous conditions) by a steady solver of its own whose error, times max|theta|, is within
-     * tolerance * scale / (4 n) for n terms (or up to 16 times that where its series cannot reach it).
+     * tolerance * scale / (2 n) for n terms (or up to 16 times that where its series cannot reach it).
      */
     private SourceSchedule sourceTerm(Problem problem, Expression theta, Expression phi, double timeHorizon, int j,
                                       int n) {
@@ -458,7 +458,7 @@ public final class TensorSolver implements SpatialSolver {
             shapeSize = Math.max(shapeSize, Math.abs(shape.value(p)));
         }
         double ownScale = shapeSize > 0 ? shapeSize * lengthScale * lengthScale / k : 1;
-        double ownTolerance = tolerance * scale / (4 * n * Math.max(thetaMax, 1e-300) * ownScale);
+        double ownTolerance = tolerance * scale / (2 * n * Math.max(thetaMax, 1e-300) * ownScale);
         String[] withTime = java.util.Arrays.copyOf(NAMES, d + 1);
         withTime[d] = "t";
         Problem steadyProblem = homogeneousProblem(problem, shape.over(withTime));
