@@ -330,17 +330,14 @@ final class SourceSchedule {
      * is at most b_J e_J / (k lambda_J), b_J = {@link #coefficientBound}, e_J = min(t max|theta'|,
      * C / (alpha lambda_J)) with C the schedule's local size at the slowest rate outside m
      * ({@link CommonLevel#localSize}); its gradient sqrt(lambda_J) times that. Modes in [0, 4 m_i)^d
-     * (at least 32 per axis) are summed one by one; beyond, {@link #far}.
+     * (at least 32 and at most {@link #BOUNDS_CAP} per axis, from a cached table of per-mode bounds) are
+     * summed one by one; beyond, {@link #far}.
      */
     double[] truncation(int[] m, double t) {
-        return truncation(m, t, 4);
-    }
-
-    double[] truncation(int[] m, double t, int factor) {
         int[] c = new int[d];
         int count = 1;
         for (int i = 0; i < d; i++) {
-            c[i] = Math.min(BOUNDS_CAP[d], Math.max(32, factor * m[i]));
+            c[i] = Math.min(BOUNDS_CAP[d], Math.max(32, 4 * m[i]));
             axes[i].ensure(c[i] + 1);
             count *= c[i];
         }

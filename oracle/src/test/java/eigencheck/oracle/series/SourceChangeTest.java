@@ -157,6 +157,42 @@ class SourceChangeTest {
     }
 
     @Test
+    void shapeCoefficientsWithinTheirBounds() {
+        // the integration-by-parts bounds of phi_J (SourceSchedule) against phi_J by a 400 x 400 Gauss rule, on a
+        // held, a convective and an insulated pair of axis ends, for a shape that vanishes on no side
+        double inf = Double.POSITIVE_INFINITY;
+        AxisModes[][] cases = {
+            {new AxisModes(1, inf, 2.5), new AxisModes(LY, 0, 0)},
+            {new AxisModes(1, inf, inf), new AxisModes(LY, 3, inf)}};
+        Expression shape = Expression.parse("y*(0.8 - y) + x*(1 - x) + 0.3*exp(x*y) + cos(3*x)*y", "x", "y");
+        int checked = 0;
+        for (AxisModes[] axes : cases) {
+            SourceSchedule term = new SourceSchedule(Expression.parse("sin(t)", "t"), 1, shape, null, axes, 2, 2.0 / 3,
+                m -> null, "the test's term");
+            double[][] rx = GaussLegendre.onInterval(400, 1);
+            double[][] ry = GaussLegendre.onInterval(400, LY);
+            for (int m : new int[] {0, 1, 2, 5, 11, 40}) {
+                for (int n : new int[] {0, 1, 3, 8, 30}) {
+                    double sum = 0;
+                    for (int i = 0; i < 400; i++) {
+                        double xm = Math.sin(axes[0].mu[m] * rx[0][i] + axes[0].phase[m]);
+                        for (int j = 0; j < 400; j++) {
+                            sum += rx[1][i] * ry[1][j] * shape.value(rx[0][i], ry[0][j]) * xm
+                                * Math.sin(axes[1].mu[n] * ry[0][j] + axes[1].phase[n]);
+                        }
+                    }
+                    double coefficient = sum / (axes[0].norm[m] * axes[1].norm[n]);
+                    double bound = term.coefficientBound(new int[] {m, n});
+                    assertTrue(Math.abs(coefficient) <= bound, "phi_" + m + "," + n + " = " + coefficient
+                        + " exceeds its bound " + bound);
+                    checked++;
+                }
+            }
+        }
+        assertEquals(60, checked);
+    }
+
+    @Test
     void refusesAMovingHeatSource() {
         // a spot travelling across the plate is not a sum of a few terms (shape) x (schedule)
         Map<Side, BoundaryCondition> sides = new EnumMap<>(Side.class);
