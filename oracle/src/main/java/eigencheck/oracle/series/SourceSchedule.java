@@ -230,19 +230,16 @@ final class SourceSchedule {
         }
     }
 
-    private static void unflatten(int c, int[] m, int[] index) {
-        for (int i = m.length - 1; i >= 0; i--) {
-            index[i] = c % m[i];
-            c /= m[i];
-        }
-    }
-
     /**
      * A bound of |phi_J| (the coefficient, divided by ||X_J||^2): the least over the choices of a level
      * per axis (level 0 alone on an axis at its constant mode) of sum_p K[c][p] prod_i mu_i^-(p_i).
      */
     double coefficientBound(int[] j) {
-        double[][] inverse = new double[d][3];
+        return coefficientBound(j, new double[d][3]);
+    }
+
+    /** As {@link #coefficientBound(int[])}, with {@code inverse} (d x 3) as scratch: the table's loop allocates nothing. */
+    private double coefficientBound(int[] j, double[][] inverse) {
         for (int i = 0; i < d; i++) {
             double mu = axes[i].mu[j[i]];
             inverse[i][0] = 1;
@@ -301,6 +298,7 @@ final class SourceSchedule {
         int size = Math.min(BOUNDS_CAP[d], Math.max(need, current == null ? 64 : 2 * current.size));
         int count = (int) Math.pow(size, d);
         double[] coefficient = new double[count];
+        double[][] inverse = new double[d][3];
         int[] index = new int[d];
         int[] sizes = new int[d];
         java.util.Arrays.fill(sizes, size);
@@ -308,8 +306,8 @@ final class SourceSchedule {
             axes[i].ensure(size + 1);
         }
         for (int q = 0; q < count; q++) {
-            unflatten(q, sizes, index);
-            coefficient[q] = coefficientBound(index);
+            TensorSolver.unflatten(q, sizes, index);
+            coefficient[q] = coefficientBound(index, inverse);
         }
         bounds = new Bounds(size, coefficient);
         return bounds;
@@ -348,7 +346,7 @@ final class SourceSchedule {
         Bounds b = bounds(c);
         int[] index = new int[d];
         for (int q = 0; q < count; q++) {
-            unflatten(q, c, index);
+            TensorSolver.unflatten(q, c, index);
             boolean inside = true;
             int at = 0;
             double lambda = 0;
@@ -530,7 +528,7 @@ final class SourceSchedule {
         double[] start = {slope.value(0), curvature.value(0), third.value(0)};
         double m4 = Double.isFinite(expandFrom) ? CommonLevel.localSize(fourth, fourthMax, t, expandFrom) : 0;
         for (int c = 0; c < into.length; c++) {
-            unflatten(c, m, index);
+            TensorSolver.unflatten(c, m, index);
             double lambda = 0;
             int source = 0;
             for (int i = 0; i < d; i++) {

@@ -2760,7 +2760,8 @@ public final class TensorSolver implements SpatialSolver {
         return a;
     }
 
-    private static void unflatten(int c, int[] m, int[] index) {
+    /** Index c of a row-major box of sizes m (last axis fastest) as its per-axis indices. */
+    static void unflatten(int c, int[] m, int[] index) {
         for (int i = m.length - 1; i >= 0; i--) {
             index[i] = c % m[i];
             c /= m[i];
