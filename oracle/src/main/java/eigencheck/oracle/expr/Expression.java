@@ -86,6 +86,15 @@ public final class Expression {
         return root.mayBeNonSmooth();
     }
 
+    /**
+     * True when an abs, step, min or max takes an argument that uses {@code variable}: the expression may
+     * then have a jump or kink along that variable (false for step(r - a) in an expression of r and t
+     * asked about t).
+     */
+    public boolean mayBeNonSmoothIn(String variable) {
+        return root.mayBeNonSmoothIn(variables, variable);
+    }
+
     /** Value at the given variables, in {@link #variables()} order. */
     public double value(double... arguments) {
         if (arguments.length != variables.size()) {

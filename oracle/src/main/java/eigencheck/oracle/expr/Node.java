@@ -19,6 +19,11 @@ abstract class Node {
         return false;
     }
 
+    /** True when an abs, step, min or max here takes an argument that uses the named variable. */
+    boolean mayBeNonSmoothIn(List<String> names, String variable) {
+        return false;
+    }
+
     static final class Constant extends Node {
         final double c;
 
@@ -126,6 +131,11 @@ abstract class Node {
         boolean mayBeNonSmooth() {
             return a.mayBeNonSmooth() || b.mayBeNonSmooth();
         }
+
+        @Override
+        boolean mayBeNonSmoothIn(List<String> names, String variable) {
+            return a.mayBeNonSmoothIn(names, variable) || b.mayBeNonSmoothIn(names, variable);
+        }
     }
 
     static final class Negate extends Node {
@@ -153,6 +163,11 @@ abstract class Node {
         @Override
         boolean mayBeNonSmooth() {
             return a.mayBeNonSmooth();
+        }
+
+        @Override
+        boolean mayBeNonSmoothIn(List<String> names, String variable) {
+            return a.mayBeNonSmoothIn(names, variable);
         }
     }
 
@@ -267,6 +282,18 @@ abstract class Node {
         @Override
         boolean mayBeNonSmooth() {
             return f.nonSmooth() || a.mayBeNonSmooth() || (b != null && b.mayBeNonSmooth());
+        }
+
+        @Override
+        boolean mayBeNonSmoothIn(List<String> names, String variable) {
+            if (f.nonSmooth()) {
+                Set<String> used = new java.util.TreeSet<>();
+                collectVariables(names, used);
+                if (used.contains(variable)) {
+                    return true;
+                }
+            }
+            return a.mayBeNonSmoothIn(names, variable) || (b != null && b.mayBeNonSmoothIn(names, variable));
         }
     }
 }

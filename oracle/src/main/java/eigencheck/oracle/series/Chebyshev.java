@@ -59,6 +59,22 @@ final class Chebyshev {
         return c;
     }
 
+    /**
+     * True when the last four coefficients are below 1e-15 of the largest (or all vanish): the series
+     * resolves its function to rounding, the test of the adaptive interpolations.
+     */
+    static boolean resolved(double[] c) {
+        double tailMax = 0;
+        double max = 0;
+        for (int i = 0; i < c.length; i++) {
+            max = Math.max(max, Math.abs(c[i]));
+            if (i >= c.length - 4) {
+                tailMax = Math.max(tailMax, Math.abs(c[i]));
+            }
+        }
+        return tailMax <= 1e-15 * Math.max(max, Double.MIN_NORMAL) || max == 0;
+    }
+
     /** Clenshaw's recurrence at the reference variable s in [-1, 1]. */
     static double value(double[] c, double s) {
         int n = c.length;

@@ -40,6 +40,9 @@ import java.util.SplittableRandom;
  * gain -(p_i / lambda_i^2) int_0^t exp(-lambda_i (t - s)) f'''(s) ds ({@link ScheduleIntegral}), p_i the
  * projection of 1 or psi, and their tail is bounded by sum |p_i| beta_i^g / lambda_i^3 (exact over the
  * computed modes, asymptotic bounds beyond).
+ * <p>A source that changes in time other than uniformly adds the response to its change
+ * Q(r, t) - Q(r, 0) with homogeneous surface data, two quasi-static solves plus a remainder whose modes
+ * fall off like lambda^-3 ({@link RadialChange}).
  */
 public final class RadialSolver implements SpatialSolver {
     private static final double EPS = Math.ulp(1.0);
@@ -85,6 +88,8 @@ public final class RadialSolver implements SpatialSolver {
     private final double[] fluxShape;
     private final ScheduleIntegral meanRise;
     private final double riseMax;
+    // a source that changes in time other than uniformly: its change's response, or null
+    private final RadialChange change;
 
     public RadialSolver(Problem problem, double timeHorizon, double tolerance) {
         if (!(tolerance > 0 && tolerance < 1)) {
@@ -106,7 +111,8 @@ public final class RadialSolver implements SpatialSolver {
         Expression source = problem.source();
         BoundaryCondition surface = problem.condition(Side.SURFACE);
         boolean fluxSurface = surface instanceof BoundaryCondition.Neumann;
-        Expression heating = steady ? null : heatingOf(source, timeHorizon);
+        boolean[] uneven = new boolean[1];
+        Expression heating = steady ? null : heatingOf(source, timeHorizon, uneven);
         boolean dataMove = surface.data().variables().contains("t") && !surface.data().isIndependentOf("t");
         boolean moving = !steady && (dataMove || heating != null);
         // the source was sampled by heatingOf (a source naming t that does not change passes); a steady problem's
@@ -180,6 +186,15 @@ public final class RadialSolver implements SpatialSolver {
             // a uniform source that changes in time moves the temperature by up to max |sigma| T
             levelMax += CommonLevel.sizes(heating, heating, heating, timeHorizon)[0] * timeHorizon;
         }
+        if (uneven[0]) {
+            double h = surface instanceof BoundaryCondition.Robin rob ? rob.heatTransferCoefficient()
+                : fluxSurface ? 0 : Double.POSITIVE_INFINITY;
+            this.change = new RadialChange(source, sphere, radius, k, rhoC, h, timeHorizon, this::mode);
+            // the change's response is at most sup |F| T (the maximum principle; for a flux surface its mean)
+            levelMax += change.sup * timeHorizon;
+        } else {
+            this.change = null;
+        }
         double data = valueOf(surface.data(), radius);
         Expression q = source;
         double sourceIntegral = integrate(r -> valueOf(q, r) * Math.pow(r, n));
@@ -215,15 +230,7 @@ public final class RadialSolver implements SpatialSolver {
         double[] c = null;
         for (int n = 17; n <= 1025; n = 2 * n - 1) {
             c = Chebyshev.interpolate(jExact, 0, radius, n);
-            double tailMax = 0;
-            double max = 0;
-            for (int i = 0; i < n; i++) {
-                max = Math.max(max, Math.abs(c[i]));
-                if (i >= n - 4) {
-                    tailMax = Math.max(tailMax, Math.abs(c[i]));
-                }
-            }
-            if (tailMax <= 1e-15 * Math.max(max, Double.MIN_NORMAL) || max == 0) {
+            if (Chebyshev.resolved(c)) {
                 break;
             }
             if (n == 1025) {
@@ -269,10 +276,10 @@ public final class RadialSolver implements SpatialSolver {
 
     /**
      * sigma(t) = (Q(R/2, t) - Q(R/2, 0)) / (rho c) over t, or null when the source does not change in
-     * time; a source that changes other than uniformly (checked at 33 radii and 16 times to 1e-12 of
-     * |Q|) is refused.
+     * time; for a source that changes other than uniformly (checked at 33 radii and 16 times to 1e-12 of
+     * |Q|) null, with {@code uneven[0]} set: {@link RadialChange} takes that change.
      */
-    private Expression heatingOf(Expression q, double timeHorizon) {
+    private Expression heatingOf(Expression q, double timeHorizon, boolean[] uneven) {
         if (!q.variables().contains("t") || q.isIndependentOf("t") || !(timeHorizon > 0)) {
             return null;
         }
@@ -295,10 +302,8 @@ public final class RadialSolver implements SpatialSolver {
                 double qt = q.value(args);
                 changes |= Math.abs(qt - q0) > 1e-12 * Math.max(1, Math.abs(q0));
                 if (Math.abs(qt - q0 - rhoC * sigma.value(t)) > 1e-12 * Math.max(1, Math.abs(qt))) {
-                    throw new OracleException(Reason.UNSUPPORTED, "source: changes in time other than uniformly (at r = "
-                        + radius * i / 32 + " m and t = " + t + " s it is " + qt + ", not " + (q0 + rhoC * sigma.value(t))
-                        + "); this version solves cylinders and spheres whose source is constant in time or changes by"
-                        + " the same amount everywhere; for other time-dependent sources use a manufactured solution");
+                    uneven[0] = true;
+                    return null;
                 }
             }
         }
@@ -617,6 +622,8 @@ public final class RadialSolver implements SpatialSolver {
         private final double curvatureNow;
         private final double meanNow;
         private final double meanBound;
+        // the response to a source changing unevenly in time (null before t > 0 or without one)
+        private final RadialChange.At changeNow;
 
         RadialSlice(double t) {
             this.t = t;
@@ -639,6 +646,7 @@ public final class RadialSolver implements SpatialSolver {
                 b = new double[0];
                 bound = steadyError + 4 * EPS * scale;
                 gradientBound = gradientError;
+                changeNow = null;
                 return;
             }
             // the mode tables grow under the solver's lock; reading them under it too keeps a slice's view whole
@@ -718,18 +726,53 @@ public final class RadialSolver implements SpatialSolver {
                         want = 2 * sz;
                     }
                 }
-                m = Math.max(mm, particular);
+                // the uneven source change's remainder z: modes until its tails meet the budgets
+                int changed = 0;
+                double cTail = 0;
+                double cgTail = 0;
+                if (change != null) {
+                    int want = Math.min(coef.length, RadialChange.CAP);
+                    while (true) {
+                        ensure(want);
+                        int sz = Math.min(coef.length, RadialChange.CAP);
+                        double[] bs = java.util.Arrays.copyOf(beta, sz);
+                        double[][] tails = change.tails(bs, java.util.Arrays.copyOf(norm, sz), t);
+                        int found = -1;
+                        for (int i = 1; i <= sz; i++) {
+                            if (tails[0][i] <= budget / 8 && tails[1][i] <= budget / (8 * radius)) {
+                                found = i;
+                                break;
+                            }
+                        }
+                        if (found > 0) {
+                            changed = found;
+                            cTail = tails[0][found];
+                            cgTail = tails[1][found];
+                            break;
+                        }
+                        if (sz >= RadialChange.CAP) {
+                            throw new OracleException(Reason.TOO_MANY_MODES, "oracle: at t = " + t + " s the response to"
+                                + " the source's change in time needs more than " + RadialChange.CAP + " modes; loosen"
+                                + " the tolerance or ask for a later time");
+                        }
+                        want = Math.min(2 * sz, RadialChange.CAP);
+                    }
+                    changeNow = change.at(t, beta, norm, changed);
+                } else {
+                    changeNow = null;
+                }
+                m = Math.max(Math.max(mm, particular), changed);
                 weighted = new double[m];
                 b = new double[m];
                 double decaySum = 0;
-                double maxBeta = 0;
+                double decaySlopeSum = 0; // sum e^{-lambda t} beta: what a coefficient error does to du/dr
                 for (int i = 0; i < m; i++) {
                     b[i] = beta[i];
-                    maxBeta = Math.max(maxBeta, beta[i]);
                     if (i < mm) {
                         double e = Math.exp(-alpha * beta[i] * beta[i] * t);
                         weighted[i] = coef[i] * e;
                         decaySum += e;
+                        decaySlopeSum += e * beta[i];
                     }
                 }
                 double quadrature = 0;
@@ -753,8 +796,18 @@ public final class RadialSolver implements SpatialSolver {
                     quadrature = relative * thirdMax * sumValue;
                     quadratureGradient = relative * thirdMax * sumGradient;
                 }
-                bound = steadyError + tail + coefError * decaySum + pTail + quadrature + meanBound;
-                gradientBound = gradientError + gTail + coefError * decaySum * maxBeta + pgTail + quadratureGradient;
+                double changeBound = 0;
+                double changeGradient = 0;
+                if (changeNow != null) {
+                    for (int i = 0; i < changed; i++) {
+                        weighted[i] += changeNow.modes[i];
+                    }
+                    changeBound = cTail + changeNow.quadrature + changeNow.valueError();
+                    changeGradient = cgTail + changeNow.quadratureSlope + changeNow.slopeError();
+                }
+                bound = steadyError + tail + coefError * decaySum + pTail + quadrature + meanBound + changeBound;
+                gradientBound = gradientError + gTail + coefError * decaySlopeSum + pgTail + quadratureGradient
+                    + changeGradient;
             }
         }
 
@@ -788,6 +841,10 @@ public final class RadialSolver implements SpatialSolver {
             double value = (steady ? 0 : drift * t) + steadyValue(r) + levelPart(r);
             double magnitude = Math.abs(value) + Math.abs(levelNow) * (fluxShape == null ? 1 : polySup(fluxShape))
                 + Math.abs(meanNow) + Math.abs(slopeNow * lag(r)) + Math.abs(curvatureNow * lag2(r));
+            if (changeNow != null) {
+                value += changeNow.value(r);
+                magnitude += changeNow.size();
+            }
             for (int i = 0; i < m; i++) {
                 double term = weighted[i] * mode(b[i] * r);
                 value += term;
@@ -827,31 +884,29 @@ public final class RadialSolver implements SpatialSolver {
                     + " temperature; ask for t > 0");
             }
             double area = (Math.pow(outer, n + 1) - Math.pow(inner, n + 1)) / (n + 1);
-            double[] sums = new double[2];
-            int[] orders = {24, 36};
-            for (int pass = 0; pass < 2; pass++) {
-                GaussLegendre g = GaussLegendre.of(orders[pass]);
-                double sum = 0;
-                for (int i = 0; i < g.nodes.length; i++) {
-                    double r = 0.5 * (inner + outer) + 0.5 * (outer - inner) * g.nodes[i];
-                    sum += 0.5 * (outer - inner) * g.weights[i] * (n == 1 ? r : r * r) * steadyValue(r);
-                }
-                sums[pass] = sum;
-            }
+            double[] sums = RadialChange.shellMeans(RadialSolver.this::steadyValue, n, inner, outer);
             double lagMean = polyMean(lag1, inner, outer);
             double lag2Mean = polyMean(lag2, inner, outer);
             double shapeMean = fluxShape == null ? 1 : polyMean(fluxShape, inner, outer);
-            double value = (steady ? 0 : drift * t) + sums[1] / area + levelNow * shapeMean + meanNow
+            double value = (steady ? 0 : drift * t) + sums[1] + levelNow * shapeMean + meanNow
                 - slopeNow * lagMean + curvatureNow * lag2Mean;
             double magnitude = Math.abs(value) + Math.abs(levelNow * shapeMean) + Math.abs(meanNow)
                 + Math.abs(slopeNow * lagMean) + Math.abs(curvatureNow * lag2Mean);
+            double changeError = 0;
+            if (changeNow != null) {
+                // the slice's bound holds the change's value error; the shell mean adds its own rules' difference
+                double[] c = changeNow.shellMean(inner, outer);
+                value += c[0];
+                magnitude += changeNow.size();
+                changeError = Math.max(0, c[1] - changeNow.valueError());
+            }
             for (int i = 0; i < m; i++) {
                 double mean = modeIntegral(b[i], inner, outer) / area;
                 double term = weighted[i] * mean;
                 value += term;
                 magnitude += Math.abs(term);
             }
-            double total = bound + 10 * Math.abs(sums[1] - sums[0]) / area + 16 * EPS * magnitude;
+            double total = bound + 10 * Math.abs(sums[1] - sums[0]) + 16 * EPS * magnitude + changeError;
             double budget = tolerance * scale;
             if (!(total <= budget)) {
                 throw new OracleException(Reason.NOT_CERTIFIED, "oracle: the shell mean over " + inner + " < r < " + outer
@@ -870,6 +925,9 @@ public final class RadialSolver implements SpatialSolver {
             double s = Chebyshev.reference(r, 0, radius);
             double g = -Chebyshev.value(j, s) / k - slopeNow * polySlope(lag1, r) + curvatureNow * polySlope(lag2, r)
                 + (fluxShape == null ? 0 : levelNow * polySlope(fluxShape, r));
+            if (changeNow != null) {
+                g += changeNow.slope(r);
+            }
             double magnitude = Math.abs(g);
             for (int i = 0; i < m; i++) {
                 double term = weighted[i] * b[i] * modeSlope(b[i] * r);

@@ -33,6 +33,21 @@ class ExpressionTest {
     }
 
     @Test
+    void nonSmoothnessIsTracedToTheVariablesOfTheKinkedArguments() {
+        // step(r - a) switches between two formulas in r only: smooth in t; abs(t - 1) has a kink in t
+        Expression inR = Expression.parse("step(r - 0.5)*sin(t) + max(r, 0.1)*t^2", "r", "t");
+        assertTrue(inR.mayBeNonSmooth());
+        assertTrue(inR.mayBeNonSmoothIn("r"));
+        assertTrue(!inR.mayBeNonSmoothIn("t"));
+        Expression inT = Expression.parse("r^2*exp(-abs(t - 1))", "r", "t");
+        assertTrue(inT.mayBeNonSmoothIn("t"));
+        assertTrue(!inT.mayBeNonSmoothIn("r"));
+        Expression nested = Expression.parse("sin(min(r*t, 2))", "r", "t");
+        assertTrue(nested.mayBeNonSmoothIn("r") && nested.mayBeNonSmoothIn("t"));
+        assertTrue(!Expression.parse("sin(r*t)", "r", "t").mayBeNonSmoothIn("t"));
+    }
+
+    @Test
     void erfMatchesCommonsMath() {
         Expression e = Expression.parse("erf(x) + erfc(x)", "x");
         assertEquals(1.0, e.value(0.7), 1e-15);

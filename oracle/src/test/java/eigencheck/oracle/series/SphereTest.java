@@ -131,9 +131,9 @@ class SphereTest {
 
     @Test
     void veryLowBiotNumbersAreRefusedRatherThanAnsweredLoosely() {
-        // at Bi = 1e-4 with a source that changes in time unevenly, the slab mapping's first eigenvalue is nearly
-        // zero and its quasi-static subtraction ill-conditioned, and the radial series takes only a source that
-        // changes uniformly: the oracle must refuse (when preparing or when asked), not guess
+        // at Bi = 1e-4 with a source that changes in time unevenly, the first eigenvalue is nearly zero and the
+        // quasi-static subtractions of the radial series (which takes this case) divide by it: the cancellation
+        // costs more than the budget of 1e-10 and the oracle must refuse (when preparing or when asked), not guess
         double radius = 0.5;
         double h = 4e-4;
         Problem p = sphere(radius, new Material(2, 3), "1 + r^2", "3*(-exp(-t)*(1 + r^2)) - 12*exp(-t)",

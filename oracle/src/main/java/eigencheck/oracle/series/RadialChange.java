@@ -1,0 +1,699 @@
+package eigencheck.oracle.series;
+
+import eigencheck.oracle.OracleException;
+import eigencheck.oracle.OracleException.Reason;
+import eigencheck.oracle.expr.Expression;
+import java.util.SplittableRandom;
+import java.util.function.DoubleUnaryOperator;
+
+/**
+ * What a cylinder's or sphere's source adds when it changes in time other than by the same amount
+ * everywhere: with F(r, t) = (Q(r, t) - Q(r, 0))/(rho c), the part v of u with homogeneous surface
+ * data and v(0) = 0 solves v_t + A v = F, A = -alpha (r^n d/dr)(d/dr)/r^n. Two quasi-static
+ * subtractions leave a fast-converging remainder:
+ * \[ v = m(t) + A^+ \tilde F(t) - A^{+2} \tilde F_t(t) + z, \qquad z_t + A z = A^{+2} \tilde F_{tt},\quad
+ * z(0) = A^{+2} \tilde F_t(0), \]
+ * \(\tilde F = F - m'\), m' the mean of F with weight r^n for an insulated (flux) surface, where A^+
+ * is the inverse on functions of mean zero and m(t) the integral of that mean; m = 0 and
+ * \(\tilde F = F\) otherwise (A^+ = A^-1). By direct differentiation v solves the problem.
+ * <ul>
+ * <li>A^+ G is a radial steady solve as in {@link RadialSolver}: J(r) = r int_0^1 s^n G(rs) ds as a
+ * Chebyshev series of adaptive length, P' = -J/alpha, P(R) = 0 (temperature surface), (k/h) J(R)/alpha
+ * (convection) or the value that gives P mean zero (flux); J's error is measured at 64 random points
+ * (times 10). An error e in G moves A^+ G by at most 2 e (R^2 + (k/h) R)/((n + 1) alpha) and its
+ * slope by 2 e R/((n + 1) alpha) (|J_e(r)| <= 2 e r/(n + 1)).</li>
+ * <li>Mode i of z: e^{-lambda t} (F_t)_i(0)/lambda^2 + lambda^-2 int_0^t e^{-lambda (t - s)} (F_tt)_i(s) ds,
+ * the projections by a Gauss-Legendre rule in r with 1.6 N + 40 nodes (checked at s = t and t/2 against
+ * a rule 25 % finer, the difference times 10), the time integral on the windows and panels of
+ * {@link ScheduleIntegral} (its error measured on the slowest mode against doubled panels).</li>
+ * <li>Past the computed modes, |(G)_i| <= ||G|| / ||X_i|| (Cauchy-Schwarz, ||G|| <= sup |G| times
+ * the root of the weight's integral) and e^{-x} <= min(1, 1/x) bound the tail by
+ * (||F_tt|| + ||F_t(0)|| min(1/t, lambda)) sum ||X_i||^-1 lambda_i^-3 (times beta_i for the slope);
+ * the norms beyond the computed modes use the same asymptotic bounds as the radial solver's tail.
+ * The sups of F, F_t(., 0) and F_tt are sampled on a grid of 33 radii and 65 times, times 1.1.</li>
+ * </ul>
+ * The bound holds for a source smooth in t (one with abs, min, max or step of t is refused); smoothness
+ * in r is measured by the Chebyshev series of the quasi-static solves.
+ */
+final class RadialChange {
+    /** The change's modes beyond this are refused (its projection matrix grows as N^2). */
+    static final int CAP = 1500;
+    private static final double EPS = Math.ulp(1.0);
+    private static final double WINDOW = 40; // exp(-40) < 4.3e-18
+    private static final GaussLegendre RULE = GaussLegendre.of(20);
+
+    private final Expression source;
+    private final Expression rate;
+    private final Expression curvature;
+    private final int rAt;
+    private final int tAt;
+    private final int arity;
+    private final int n;
+    private final double radius;
+    private final double alpha;
+    private final double rhoC;
+    private final boolean flux;
+    private final double surfaceLag; // k/h for convection, 0 for a temperature surface
+    private final boolean sphere;
+    private final DoubleUnaryOperator mode;
+    /** sup |F| over the samples times 1.1. */
+    final double sup;
+    private final double rateAtStart;
+    private final double curvatureSup;
+    private final double weightRoot;
+
+    /**
+     * @param h the surface's heat transfer coefficient: infinite for a temperature surface, 0 for a flux
+     * @param mode X(x) at x = beta r
+     */
+    RadialChange(Expression source, boolean sphere, double radius, double k, double rhoC, double h, double horizon,
+        DoubleUnaryOperator mode) {
+        if (source.mayBeNonSmoothIn("t")) {
+            throw new OracleException(Reason.UNSUPPORTED, "source: " + source.source() + " changes in time other than"
+                + " uniformly and has abs, min, max or step of t; the cylinder's and sphere's series for such a change"
+                + " needs a source smooth in t (write a switch-on as a smooth ramp such as 1 - exp(-t/tau))");
+        }
+        this.source = source;
+        this.rate = source.derivative("t");
+        this.curvature = rate.derivative("t");
+        this.rAt = source.variables().indexOf("r");
+        this.tAt = source.variables().indexOf("t");
+        this.arity = source.variables().size();
+        this.sphere = sphere;
+        this.n = sphere ? 2 : 1;
+        this.radius = radius;
+        this.alpha = k / rhoC;
+        this.rhoC = rhoC;
+        this.flux = h == 0;
+        this.surfaceLag = h == Double.POSITIVE_INFINITY || h == 0 ? 0 : k / h;
+        this.mode = mode;
+        this.weightRoot = Math.sqrt(Math.pow(radius, n + 1) / (n + 1));
+        double s0 = 0;
+        double s1 = 0;
+        double s2 = 0;
+        for (int i = 0; i <= 32; i++) {
+            double r = radius * i / 32;
+            double q0 = at(source, r, 0);
+            s1 = Math.max(s1, Math.abs(at(rate, r, 0)));
+            for (int j = 0; j <= 64; j++) {
+                double t = horizon * j / 64;
+                s0 = Math.max(s0, Math.abs(at(source, r, t) - q0));
+                s2 = Math.max(s2, Math.abs(at(curvature, r, t)));
+            }
+        }
+        this.sup = 1.1 * s0;
+        this.rateAtStart = 1.1 * s1;
+        this.curvatureSup = 1.1 * s2;
+    }
+
+    /** F, F_t or F_tt (of Q, Q_t, Q_tt) at (r, t), in K/s, K/s^2, K/s^3. */
+    private double at(Expression e, double r, double t) {
+        double[] args = new double[arity];
+        if (rAt >= 0) {
+            args[rAt] = r;
+        }
+        if (tAt >= 0) {
+            args[tAt] = t;
+        }
+        double v = e.value(args) / rhoC;
+        if (!Double.isFinite(v)) {
+            throw new OracleException(Reason.DATA_NOT_FINITE, "source: " + e.source() + " is " + v * rhoC + " at r = "
+                + r + " m, t = " + t + " s");
+        }
+        return v;
+    }
+
+    private double change(double r, double t) {
+        return at(source, r, t) - at(source, r, 0);
+    }
+
+    /**
+     * The tails of the change's modes from each index {@code from} = 0..beta.length at time t: values
+     * ([0][from]) and slopes ([1][from]), (||F_tt|| + ||F_t(0)|| min(1/t, lambda)) S_3 with
+     * S_p = sum_{i >= from} ||X_i||^-1 lambda_i^-p beta_i^g: exact over the computed modes, then with
+     * beta_i >= i pi / R, beta_i <= 2 i pi / R and ||X_i||^-1 <= 2 pi sqrt(i)/R (cylinder) or
+     * 2 i pi/(R sqrt(0.42 R)) (sphere), the sum over i by its integral from (past - 1).
+     */
+    double[][] tails(double[] beta, double[] norm, double t) {
+        int size = beta.length;
+        double a = curvatureSup * weightRoot;
+        double b = rateAtStart * weightRoot;
+        double[][] out = new double[2][size + 1];
+        int past = Math.max(size, 2);
+        double c = Math.PI / radius;
+        for (int g = 0; g <= 1; g++) {
+            double[] s = new double[4];
+            for (int p = 2; p <= 3; p++) {
+                double factor = (sphere ? 2 * Math.PI / (radius * Math.sqrt(0.42 * radius)) : 2 * Math.PI / radius)
+                    * Math.pow(2 * c, g) / (Math.pow(alpha, p) * Math.pow(c, 2 * p));
+                double e = 2 * p - g - (sphere ? 1 : 0.5);
+                s[p] = factor * Math.pow(past - 1, 1 - e) / (e - 1);
+            }
+            out[g][size] = a * s[3] + b * Math.min(s[3] / t, s[2]);
+            for (int i = size - 1; i >= 0; i--) {
+                double l = alpha * beta[i] * beta[i];
+                if (l > 0) {
+                    double w = Math.pow(beta[i], g) / Math.sqrt(norm[i]);
+                    s[2] += w / (l * l);
+                    s[3] += w / (l * l * l);
+                }
+                out[g][i] = a * s[3] + b * Math.min(s[3] / t, s[2]);
+            }
+        }
+        return out;
+    }
+
+    /** The change's part at time t > 0, with modes 0..count-1 of the given tables. */
+    At at(double t, double[] beta, double[] norm, int count) {
+        return new At(t, beta, norm, count);
+    }
+
+    /** A^+ G as a radial steady solve. */
+    final class Inverse {
+        private final double[] j;
+        private final double[] jIntegral;
+        private final double atSurface;
+        /** Bounds of the errors of value and slope. */
+        final double error;
+        final double slopeError;
+        /** sup |A^+ G| over 33 radii, for the rounding count. */
+        final double size;
+
+        Inverse(DoubleUnaryOperator given) {
+            DoubleUnaryOperator g = given;
+            double meanError = 0;
+            if (flux) {
+                double[] means = new double[2];
+                int[] orders = {64, 96};
+                for (int pass = 0; pass < 2; pass++) {
+                    GaussLegendre rule = GaussLegendre.of(orders[pass]);
+                    double sum = 0;
+                    for (int i = 0; i < rule.nodes.length; i++) {
+                        double r = 0.5 * radius * (rule.nodes[i] + 1);
+                        sum += 0.5 * radius * rule.weights[i] * Math.pow(r, n) * given.applyAsDouble(r);
+                    }
+                    means[pass] = sum * (n + 1) / Math.pow(radius, n + 1);
+                }
+                double mean = means[1];
+                meanError = 10 * Math.abs(means[1] - means[0]);
+                g = r -> given.applyAsDouble(r) - mean;
+            }
+            DoubleUnaryOperator shifted = g;
+            GaussLegendre rule = GaussLegendre.of(40);
+            DoubleUnaryOperator exact = r -> {
+                double sum = 0;
+                for (int i = 0; i < rule.nodes.length; i++) {
+                    double s = 0.5 * (rule.nodes[i] + 1);
+                    sum += 0.5 * rule.weights[i] * (n == 1 ? s : s * s) * shifted.applyAsDouble(r * s);
+                }
+                return r * sum;
+            };
+            double[] c = null;
+            for (int size = 17; ; size = 2 * size - 1) {
+                c = Chebyshev.interpolate(exact, 0, radius, size);
+                if (Chebyshev.resolved(c)) {
+                    break;
+                }
+                if (size >= 1025) {
+                    throw new OracleException(Reason.DATA_NOT_RESOLVED, "source: its change in time is too rough in r"
+                        + " for a Chebyshev series of degree 1024");
+                }
+            }
+            this.j = c;
+            double[] integral = Chebyshev.antiderivative(c, 0, radius);
+            integral[0] -= Chebyshev.value(integral, -1);
+            this.jIntegral = integral;
+            SplittableRandom random = new SplittableRandom(20261202L);
+            double err = 0;
+            for (int i = 0; i < 64; i++) {
+                double r = random.nextDouble() * radius;
+                err = Math.max(err, Math.abs(exact.applyAsDouble(r) - Chebyshev.value(j, Chebyshev.reference(r, 0,
+                    radius))));
+            }
+            double jErr = 10 * err + 8 * EPS * Chebyshev.absSum(j);
+            double whole = Chebyshev.value(jIntegral, 1);
+            double surface;
+            double valueError = jErr * radius / alpha;
+            if (flux) {
+                // P(R) such that the mean of P = P(R) + (K(R) - K(r))/alpha with weight r^n is 0
+                GaussLegendre m = GaussLegendre.of(64);
+                double sum = 0;
+                for (int i = 0; i < m.nodes.length; i++) {
+                    double r = 0.5 * radius * (m.nodes[i] + 1);
+                    sum += 0.5 * radius * m.weights[i] * Math.pow(r, n) * (whole - Chebyshev.value(jIntegral,
+                        Chebyshev.reference(r, 0, radius))) / alpha;
+                }
+                surface = -sum * (n + 1) / Math.pow(radius, n + 1);
+                valueError *= 2;
+            } else {
+                surface = surfaceLag * Chebyshev.value(j, 1) / alpha;
+                valueError += surfaceLag * jErr / alpha;
+            }
+            this.atSurface = surface;
+            double gain = 2 * (radius * radius + surfaceLag * radius) / ((n + 1) * alpha);
+            this.error = valueError + gain * meanError;
+            this.slopeError = jErr / alpha + 2 * radius * meanError / ((n + 1) * alpha);
+            double s = 0;
+            for (int i = 0; i <= 32; i++) {
+                s = Math.max(s, Math.abs(value(radius * i / 32)));
+            }
+            this.size = s;
+        }
+
+        double value(double r) {
+            return atSurface + (Chebyshev.value(jIntegral, 1) - Chebyshev.value(jIntegral, Chebyshev.reference(r, 0,
+                radius))) / alpha;
+        }
+
+        double slope(double r) {
+            return -Chebyshev.value(j, Chebyshev.reference(r, 0, radius)) / alpha;
+        }
+
+        /** The mean over a < r < b (weight r^n) by two Gauss-Legendre rules; [mean, error]. */
+        double[] mean(double a, double b) {
+            double[] sums = shellMeans(this::value, n, a, b);
+            return new double[] {sums[1], error + 10 * Math.abs(sums[1] - sums[0])};
+        }
+    }
+
+    /** The change's part at one time: the two quasi-static solves, the mean rise and the modes of z. */
+    final class At {
+        final Inverse first;
+        final Inverse second;
+        /** The mean rise m(t) of a flux surface (0 otherwise) and its error. */
+        final double mean;
+        final double meanError;
+        /** z_i(t) for i < count (0 for the zero mode). */
+        final double[] modes;
+        /** Bounds of the quadrature errors of z's computed modes in values and slopes. */
+        final double quadrature;
+        final double quadratureSlope;
+
+        private At(double t, double[] beta, double[] norm, int count) {
+            this.first = new Inverse(r -> change(r, t));
+            Inverse rateSolve = new Inverse(r -> at(rate, r, t));
+            Inverse nested = new Inverse(rateSolve::value);
+            // the error of the inner solve passes through the outer one with its gain
+            double gain = 2 * (radius * radius + surfaceLag * radius) / ((n + 1) * alpha);
+            this.second = nested;
+            double innerValue = gain * rateSolve.error;
+            double innerSlope = 2 * radius * rateSolve.error / ((n + 1) * alpha);
+            double density = density(t);
+            if (flux) {
+                double coarse = meanRise(t, density, 1);
+                double fine = meanRise(t, density, 2);
+                this.mean = fine;
+                this.meanError = 10 * Math.abs(fine - coarse) + 1e-14 * t * sup;
+            } else {
+                this.mean = 0;
+                this.meanError = 0;
+            }
+            // F_tt(., s) as a Chebyshev interpolant of d points in r; its projections through the matrix
+            // G[i][j] = <l_j, X_i> / ||X_i||^2 (l_j the Lagrange polynomials), by Gauss-Legendre with nq nodes
+            double[] represented = radialSize(t);
+            int d = (int) represented[0];
+            double representation = represented[1];
+            int nq = (int) Math.ceil(1.6 * count + 40);
+            double[][] matrix = projections(beta, norm, count, nq);
+            double[][] lagrange = lagrangeProjections(matrix, nq, d);
+            double[] nodes = radialNodes(nq);
+            double[] cheb = Chebyshev.nodes(0, radius, d);
+            double[] initialRate = new double[nq];
+            for (int q = 0; q < nq; q++) {
+                initialRate[q] = at(rate, nodes[q], 0);
+            }
+            double[] z = new double[count];
+            double[] lambda = new double[count];
+            int slowest = -1;
+            int windows = 0;
+            for (int i = 0; i < count; i++) {
+                lambda[i] = alpha * beta[i] * beta[i];
+                if (lambda[i] > 0) {
+                    double p = dot(matrix[i], initialRate);
+                    z[i] = Math.exp(-lambda[i] * t) * p / (lambda[i] * lambda[i]);
+                    if (slowest < 0 || lambda[i] < lambda[slowest]) {
+                        slowest = i;
+                    }
+                    windows = Math.max(windows, window(lambda[i], t) + 1);
+                }
+            }
+            double[] integrals = new double[count];
+            double[] f = new double[d];
+            int[] members = new int[count];
+            for (int k = 0; k < windows; k++) {
+                int size = 0;
+                for (int i = 0; i < count; i++) {
+                    if (lambda[i] > 0 && window(lambda[i], t) == k) {
+                        members[size++] = i;
+                    }
+                }
+                if (size == 0) {
+                    continue;
+                }
+                double width = t / Math.pow(2, k);
+                int panels = (int) Math.max(10, Math.ceil(width * density));
+                double h = width / panels;
+                for (int p = 0; p < panels; p++) {
+                    double mid = t - width + (p + 0.5) * h;
+                    for (int node = 0; node < RULE.nodes.length; node++) {
+                        double s = mid + 0.5 * h * RULE.nodes[node];
+                        for (int q = 0; q < d; q++) {
+                            f[q] = at(curvature, cheb[q], s);
+                        }
+                        double w = 0.5 * h * RULE.weights[node];
+                        for (int m = 0; m < size; m++) {
+                            int i = members[m];
+                            integrals[i] += w * Math.exp(-lambda[i] * (t - s)) * dot(lagrange[i], f);
+                        }
+                    }
+                }
+            }
+            double sumValue = 0;
+            double sumSlope = 0;
+            for (int i = 0; i < count; i++) {
+                if (lambda[i] > 0) {
+                    z[i] += integrals[i] / (lambda[i] * lambda[i]);
+                    double weight = weightRoot / (Math.sqrt(norm[i]) * Math.pow(lambda[i], 3));
+                    sumValue += weight;
+                    sumSlope += weight * beta[i];
+                }
+            }
+            this.modes = z;
+            double relative = 0;
+            if (slowest >= 0 && curvatureSup > 0) {
+                double l = lambda[slowest];
+                double doubled = doubledIntegral(lagrange[slowest], cheb, l, t, density);
+                double scaleOf = curvatureSup * weightRoot / Math.sqrt(norm[slowest]) / l;
+                relative = Math.abs(doubled - integrals[slowest]) / scaleOf + 1e-14;
+            }
+            // the radial rule against one 25 % finer, at s = t and t/2 and for the initial rate
+            int fine = nq + nq / 4 + 8;
+            double[] fineNodes = radialNodes(fine);
+            double[][] fineMatrix = projections(beta, norm, count, fine);
+            double[][] fineLagrange = lagrangeProjections(fineMatrix, fine, d);
+            double radial = 0;
+            double radialSlope = 0;
+            double[] worst = new double[count];
+            for (double s : new double[] {t, t / 2, -1}) {
+                double[] coarseF;
+                double[] fineF;
+                double[][] coarseM;
+                double[][] fineM;
+                if (s < 0) {
+                    coarseF = initialRate;
+                    fineF = new double[fine];
+                    for (int q = 0; q < fine; q++) {
+                        fineF[q] = at(rate, fineNodes[q], 0);
+                    }
+                    coarseM = matrix;
+                    fineM = fineMatrix;
+                } else {
+                    coarseF = new double[d];
+                    for (int q = 0; q < d; q++) {
+                        coarseF[q] = at(curvature, cheb[q], s);
+                    }
+                    fineF = coarseF;
+                    coarseM = lagrange;
+                    fineM = fineLagrange;
+                }
+                for (int i = 0; i < count; i++) {
+                    if (lambda[i] == 0) {
+                        continue;
+                    }
+                    double e = 10 * Math.abs(dot(coarseM[i], coarseF) - dot(fineM[i], fineF));
+                    // the curvature's projection error acts through int e^{-lambda (t-s)} ds / lambda^2 <= 1/lambda^3,
+                    // the initial rate's through e^{-lambda t} / lambda^2
+                    double effect = s < 0 ? e * Math.exp(-lambda[i] * t) / (lambda[i] * lambda[i])
+                        : e / Math.pow(lambda[i], 3);
+                    worst[i] = Math.max(worst[i], effect);
+                }
+            }
+            for (int i = 0; i < count; i++) {
+                radial += worst[i];
+                radialSlope += worst[i] * beta[i];
+            }
+            // rounding in the sums over the radial nodes and the panels
+            double rounding = 0;
+            double roundingSlope = 0;
+            for (int i = 0; i < count; i++) {
+                if (lambda[i] > 0) {
+                    double r = 4 * EPS * nq * (curvatureSup * t * absSum(lagrange[i]) + rateAtStart * absSum(matrix[i]))
+                        / (lambda[i] * lambda[i]);
+                    rounding += r;
+                    roundingSlope += r * beta[i];
+                }
+            }
+            // an error e of the interpolant in F_tt moves mode i by at most e ||1|| / (||X_i|| lambda_i^3)
+            double spread = relative * curvatureSup + representation;
+            this.quadrature = spread * sumValue + radial + rounding + innerValue;
+            this.quadratureSlope = spread * sumSlope + radialSlope + roundingSlope + innerSlope;
+        }
+
+        /** A^+ F - A^+2 F_t + m at r. */
+        double value(double r) {
+            return first.value(r) - second.value(r) + mean;
+        }
+
+        double slope(double r) {
+            return first.slope(r) - second.slope(r);
+        }
+
+        /** Bound of the errors of {@link #value} (the quasi-static solves and the mean). */
+        double valueError() {
+            return first.error + second.error + meanError;
+        }
+
+        double slopeError() {
+            return first.slopeError + second.slopeError;
+        }
+
+        /** sup |A^+ F| + sup |A^+2 F_t| + |m|, for the rounding count. */
+        double size() {
+            return first.size + second.size + Math.abs(mean);
+        }
+
+        /** The shell mean of {@link #value} over a < r < b: [mean, error]. */
+        double[] shellMean(double a, double b) {
+            double[] p = first.mean(a, b);
+            double[] q = second.mean(a, b);
+            return new double[] {p[0] - q[0] + mean, p[1] + q[1] + meanError};
+        }
+    }
+
+    /**
+     * The number d of Chebyshev points in r that resolve F_tt(., s) at s = 0, t/4, t/2, 3t/4, t (the last
+     * four coefficients below 1e-15 of the largest, up to 257) and the interpolant's error measured at eight
+     * random radii per time, times 10, plus rounding: [d, error].
+     */
+    private double[] radialSize(double t) {
+        int best = 17;
+        double[] times = {0, t / 4, t / 2, 3 * t / 4, t};
+        for (double s : times) {
+            for (int size = best; ; size = 2 * size - 1) {
+                double[] c = Chebyshev.interpolate(r -> at(curvature, r, s), 0, radius, size);
+                if (Chebyshev.resolved(c)) {
+                    best = size;
+                    break;
+                }
+                if (size >= 257) {
+                    throw new OracleException(Reason.DATA_NOT_RESOLVED, "source: its second time derivative at t = " + s
+                        + " s is too rough in r for a Chebyshev series of degree 256; smooth the source's change in time");
+                }
+            }
+        }
+        SplittableRandom random = new SplittableRandom(20261203L);
+        double err = 0;
+        for (double s : times) {
+            double[] c = Chebyshev.interpolate(r -> at(curvature, r, s), 0, radius, best);
+            for (int i = 0; i < 8; i++) {
+                double r = random.nextDouble() * radius;
+                err = Math.max(err, Math.abs(at(curvature, r, s) - Chebyshev.value(c, Chebyshev.reference(r, 0, radius)))
+                    + 8 * EPS * Chebyshev.absSum(c));
+            }
+        }
+        return new double[] {best, 10 * err};
+    }
+
+    /**
+     * G[i][j] = sum_q M[i][q] l_j(r_q): the projections of the Lagrange polynomials at the d Chebyshev
+     * points, l_j = sum_k V_kj T_k with V_kj = (2/d) cos(pi k (2j + 1)/(2d)) (halved at k = 0).
+     */
+    private double[][] lagrangeProjections(double[][] m, int nq, int d) {
+        double[] nodes = radialNodes(nq);
+        double[][] v = new double[d][d];
+        for (int k = 0; k < d; k++) {
+            for (int j = 0; j < d; j++) {
+                v[k][j] = (k == 0 ? 1.0 : 2.0) / d * Math.cos(Math.PI * k * (2 * j + 1) / (2.0 * d));
+            }
+        }
+        double[][] ell = new double[nq][d];
+        double[] tk = new double[d];
+        for (int q = 0; q < nq; q++) {
+            double x = Chebyshev.reference(nodes[q], 0, radius);
+            tk[0] = 1;
+            if (d > 1) {
+                tk[1] = x;
+            }
+            for (int k = 2; k < d; k++) {
+                tk[k] = 2 * x * tk[k - 1] - tk[k - 2];
+            }
+            for (int k = 0; k < d; k++) {
+                double a = tk[k];
+                double[] row = v[k];
+                double[] out = ell[q];
+                for (int j = 0; j < d; j++) {
+                    out[j] += a * row[j];
+                }
+            }
+        }
+        double[][] g = new double[m.length][d];
+        for (int i = 0; i < m.length; i++) {
+            double[] row = m[i];
+            double[] out = g[i];
+            for (int q = 0; q < nq; q++) {
+                double a = row[q];
+                double[] e = ell[q];
+                for (int j = 0; j < d; j++) {
+                    out[j] += a * e[j];
+                }
+            }
+        }
+        return g;
+    }
+
+    /** The mean of f over a < r < b with weight r^n by 24- and 36-point Gauss-Legendre rules: [coarse, fine]. */
+    static double[] shellMeans(DoubleUnaryOperator f, int n, double a, double b) {
+        double area = (Math.pow(b, n + 1) - Math.pow(a, n + 1)) / (n + 1);
+        double[] sums = new double[2];
+        int[] orders = {24, 36};
+        for (int pass = 0; pass < 2; pass++) {
+            GaussLegendre g = GaussLegendre.of(orders[pass]);
+            double sum = 0;
+            for (int i = 0; i < g.nodes.length; i++) {
+                double r = 0.5 * (a + b) + 0.5 * (b - a) * g.nodes[i];
+                sum += 0.5 * (b - a) * g.weights[i] * Math.pow(r, n) * f.applyAsDouble(r);
+            }
+            sums[pass] = sum / area;
+        }
+        return sums;
+    }
+
+    private static double absSum(double[] v) {
+        double s = 0;
+        for (double x : v) {
+            s += Math.abs(x);
+        }
+        return s;
+    }
+
+    private static double dot(double[] a, double[] b) {
+        double s = 0;
+        for (int i = 0; i < b.length; i++) {
+            s += a[i] * b[i];
+        }
+        return s;
+    }
+
+    private double[] radialNodes(int nq) {
+        GaussLegendre g = GaussLegendre.of(nq);
+        double[] r = new double[nq];
+        for (int q = 0; q < nq; q++) {
+            r[q] = 0.5 * radius * (g.nodes[q] + 1);
+        }
+        return r;
+    }
+
+    private double[][] projections(double[] beta, double[] norm, int count, int nq) {
+        GaussLegendre g = GaussLegendre.of(nq);
+        double[][] m = new double[count][nq];
+        for (int q = 0; q < nq; q++) {
+            double r = 0.5 * radius * (g.nodes[q] + 1);
+            double w = 0.5 * radius * g.weights[q] * Math.pow(r, n);
+            for (int i = 0; i < count; i++) {
+                m[i][q] = w * mode.applyAsDouble(beta[i] * r) / norm[i];
+            }
+        }
+        return m;
+    }
+
+    private static int window(double lambda, double t) {
+        return lambda * t <= WINDOW ? 0 : (int) Math.floor(Math.log(lambda * t / WINDOW) / Math.log(2));
+    }
+
+    /**
+     * Panels per unit time at which int_0^t sum_j F_tt(r_j, s)^2 ds over five radii settles to 1e-14
+     * (panels doubled up to 4096).
+     */
+    private double density(double t) {
+        int panels = 1;
+        double previous = squares(t, panels);
+        while (panels < 4096) {
+            double next = squares(t, 2 * panels);
+            panels *= 2;
+            boolean settled = Math.abs(next - previous) <= 1e-14 * Math.max(next, 1e-300);
+            previous = next;
+            if (settled) {
+                break;
+            }
+        }
+        return panels / t;
+    }
+
+    private double squares(double t, int panels) {
+        double h = t / panels;
+        double sum = 0;
+        for (int p = 0; p < panels; p++) {
+            double mid = (p + 0.5) * h;
+            for (int q = 0; q < RULE.nodes.length; q++) {
+                double s = mid + 0.5 * h * RULE.nodes[q];
+                for (int j = 0; j < 5; j++) {
+                    double v = at(curvature, radius * (0.1 + 0.2 * j), s);
+                    sum += RULE.weights[q] * v * v;
+                }
+            }
+        }
+        return 0.5 * h * sum;
+    }
+
+    /** m(t) = int_0^t mean F(., s) ds (weight r^n) on panels at the density (refined by a factor). */
+    private double meanRise(double t, double density, int refine) {
+        int panels = refine * (int) Math.max(10, Math.ceil(t * density));
+        double h = t / panels;
+        GaussLegendre g = GaussLegendre.of(64);
+        double sum = 0;
+        for (int p = 0; p < panels; p++) {
+            double mid = (p + 0.5) * h;
+            for (int node = 0; node < RULE.nodes.length; node++) {
+                double s = mid + 0.5 * h * RULE.nodes[node];
+                double inner = 0;
+                for (int i = 0; i < g.nodes.length; i++) {
+                    double r = 0.5 * radius * (g.nodes[i] + 1);
+                    inner += 0.5 * radius * g.weights[i] * Math.pow(r, n) * change(r, s);
+                }
+                sum += RULE.weights[node] * inner;
+            }
+        }
+        return 0.5 * h * sum * (n + 1) / Math.pow(radius, n + 1);
+    }
+
+    /** The slowest mode's Duhamel integral of F_tt on doubled panels of its window. */
+    private double doubledIntegral(double[] row, double[] nodes, double lambda, double t, double density) {
+        int k = window(lambda, t);
+        double width = t / Math.pow(2, k);
+        int panels = 2 * (int) Math.max(10, Math.ceil(width * density));
+        double h = width / panels;
+        double[] f = new double[nodes.length];
+        double sum = 0;
+        for (int p = 0; p < panels; p++) {
+            double mid = t - width + (p + 0.5) * h;
+            for (int node = 0; node < RULE.nodes.length; node++) {
+                double s = mid + 0.5 * h * RULE.nodes[node];
+                for (int q = 0; q < nodes.length; q++) {
+                    f[q] = at(curvature, nodes[q], s);
+                }
+                sum += 0.5 * h * RULE.weights[node] * Math.exp(-lambda * (t - s)) * dot(row, f);
+            }
+        }
+        return sum;
+    }
+}
