@@ -24,8 +24,10 @@ import java.util.function.DoubleUnaryOperator;
  * slope by 2 e R/((n + 1) alpha) (|J_e(r)| <= 2 e r/(n + 1)).</li>
  * <li>Mode i of z: e^{-lambda t} (F_t)_i(0)/lambda^2 + lambda^-2 int_0^t e^{-lambda (t - s)} (F_tt)_i(s) ds,
  * the projections by a Gauss-Legendre rule in r with 1.6 N + 40 nodes (checked at s = t and t/2 against
- * a rule 25 % finer, the difference times 10), the time integral on the windows and panels of
- * {@link ScheduleIntegral} (its error measured on the slowest mode against doubled panels).</li>
+ * a rule 25 % finer, the difference times 10), F_tt as a Chebyshev interpolant in r (its error measured),
+ * the time integral on a grid graded toward t that every mode shares (the kernel resolved as on the windows of
+ * {@link ScheduleIntegral}; the error measured on the slowest mode against uniform panels at twice the density);
+ * the interpolant has the fewest points whose error, times what it can do to the modes, is 1/16 of the budget.</li>
  * <li>Past the computed modes, |(G)_i| <= ||G|| / ||X_i|| (Cauchy-Schwarz, ||G|| <= sup |G| times
  * the root of the weight's integral) and e^{-x} <= min(1, 1/x) bound the tail by
  * (||F_tt|| + ||F_t(0)|| min(1/t, lambda)) sum ||X_i||^-1 lambda_i^-3 (times beta_i for the slope);
@@ -163,9 +165,12 @@ final class RadialChange {
         return out;
     }
 
-    /** The change's part at time t > 0, with modes 0..count-1 of the given tables. */
-    At at(double t, double[] beta, double[] norm, int count) {
-        return new At(t, beta, norm, count);
+    /**
+     * The change's part at time t > 0, with modes 0..count-1 of the given tables; {@code budget} (K) the
+     * slice's allowance, of which F_tt's interpolant in r may use 1/16.
+     */
+    At at(double t, double[] beta, double[] norm, int count, double budget) {
+        return new At(t, beta, norm, count, budget);
     }
 
     /** A^+ G as a radial steady solve. */
@@ -289,7 +294,7 @@ final class RadialChange {
         final double quadrature;
         final double quadratureSlope;
 
-        private At(double t, double[] beta, double[] norm, int count) {
+        private At(double t, double[] beta, double[] norm, int count, double budget) {
             this.first = new Inverse(r -> change(r, t));
             Inverse rateSolve = new Inverse(r -> at(rate, r, t));
             Inverse nested = new Inverse(rateSolve::value);
@@ -310,7 +315,17 @@ final class RadialChange {
             }
             // F_tt(., s) as a Chebyshev interpolant of d points in r; its projections through the matrix
             // G[i][j] = <l_j, X_i> / ||X_i||^2 (l_j the Lagrange polynomials), by Gauss-Legendre with nq nodes
-            double[] represented = radialSize(t);
+            double gauge = 0;
+            double gaugeSlope = 0;
+            for (int i = 0; i < count; i++) {
+                double l = alpha * beta[i] * beta[i];
+                if (l > 0) {
+                    double weight = weightRoot / (Math.sqrt(norm[i]) * Math.pow(l, 3));
+                    gauge += weight;
+                    gaugeSlope += weight * beta[i];
+                }
+            }
+            double[] represented = radialSize(t, Math.min(budget / (16 * gauge), budget / (16 * radius * gaugeSlope)));
             int d = (int) represented[0];
             double representation = represented[1];
             int nq = (int) Math.ceil(1.6 * count + 40);
@@ -325,7 +340,6 @@ final class RadialChange {
             double[] z = new double[count];
             double[] lambda = new double[count];
             int slowest = -1;
-            int windows = 0;
             for (int i = 0; i < count; i++) {
                 lambda[i] = alpha * beta[i] * beta[i];
                 if (lambda[i] > 0) {
@@ -334,40 +348,10 @@ final class RadialChange {
                     if (slowest < 0 || lambda[i] < lambda[slowest]) {
                         slowest = i;
                     }
-                    windows = Math.max(windows, window(lambda[i], t) + 1);
                 }
             }
             double[] integrals = new double[count];
-            double[] f = new double[d];
-            int[] members = new int[count];
-            for (int k = 0; k < windows; k++) {
-                int size = 0;
-                for (int i = 0; i < count; i++) {
-                    if (lambda[i] > 0 && window(lambda[i], t) == k) {
-                        members[size++] = i;
-                    }
-                }
-                if (size == 0) {
-                    continue;
-                }
-                double width = t / Math.pow(2, k);
-                int panels = (int) Math.max(10, Math.ceil(width * density));
-                double h = width / panels;
-                for (int p = 0; p < panels; p++) {
-                    double mid = t - width + (p + 0.5) * h;
-                    for (int node = 0; node < RULE.nodes.length; node++) {
-                        double s = mid + 0.5 * h * RULE.nodes[node];
-                        for (int q = 0; q < d; q++) {
-                            f[q] = at(curvature, cheb[q], s);
-                        }
-                        double w = 0.5 * h * RULE.weights[node];
-                        for (int m = 0; m < size; m++) {
-                            int i = members[m];
-                            integrals[i] += w * Math.exp(-lambda[i] * (t - s)) * dot(lagrange[i], f);
-                        }
-                    }
-                }
-            }
+            duhamel(lagrange, lambda, 0, count, t, density, 1, cheb, integrals);
             double sumValue = 0;
             double sumSlope = 0;
             for (int i = 0; i < count; i++) {
@@ -382,7 +366,7 @@ final class RadialChange {
             double relative = 0;
             if (slowest >= 0 && curvatureSup > 0) {
                 double l = lambda[slowest];
-                double doubled = doubledIntegral(lagrange[slowest], cheb, l, t, density);
+                double doubled = uniformIntegral(lagrange[slowest], cheb, l, t, density);
                 double scaleOf = curvatureSup * weightRoot / Math.sqrt(norm[slowest]) / l;
                 relative = Math.abs(doubled - integrals[slowest]) / scaleOf + 1e-14;
             }
@@ -481,37 +465,48 @@ final class RadialChange {
     }
 
     /**
-     * The number d of Chebyshev points in r that resolve F_tt(., s) at s = 0, t/4, t/2, 3t/4, t (the last
-     * four coefficients below 1e-15 of the largest, up to 257) and the interpolant's error measured at eight
-     * random radii per time, times 10, plus rounding: [d, error].
+     * The number d of Chebyshev points in r (9, 17, 33, ... 257) whose interpolant of F_tt(., s) at
+     * s = 0, t/4, t/2, 3t/4 and t is within {@code limit} (K/s^3) or resolves it to rounding (the last four
+     * coefficients below 1e-15 of the largest), the error measured at eight random radii per time, times 10,
+     * plus rounding: [d, error].
      */
-    private double[] radialSize(double t) {
-        int best = 17;
+    private double[] radialSize(double t, double limit) {
         double[] times = {0, t / 4, t / 2, 3 * t / 4, t};
-        for (double s : times) {
-            for (int size = best; ; size = 2 * size - 1) {
-                double[] c = Chebyshev.interpolate(r -> at(curvature, r, s), 0, radius, size);
-                if (Chebyshev.resolved(c)) {
-                    best = size;
-                    break;
-                }
-                if (size >= 257) {
-                    throw new OracleException(Reason.DATA_NOT_RESOLVED, "source: its second time derivative at t = " + s
-                        + " s is too rough in r for a Chebyshev series of degree 256; smooth the source's change in time");
-                }
-            }
-        }
         SplittableRandom random = new SplittableRandom(20261203L);
-        double err = 0;
-        for (double s : times) {
-            double[] c = Chebyshev.interpolate(r -> at(curvature, r, s), 0, radius, best);
-            for (int i = 0; i < 8; i++) {
-                double r = random.nextDouble() * radius;
-                err = Math.max(err, Math.abs(at(curvature, r, s) - Chebyshev.value(c, Chebyshev.reference(r, 0, radius)))
-                    + 8 * EPS * Chebyshev.absSum(c));
+        double[][] probes = new double[times.length][8];
+        for (double[] row : probes) {
+            for (int i = 0; i < row.length; i++) {
+                row[i] = random.nextDouble() * radius;
             }
         }
-        return new double[] {best, 10 * err};
+        double[][] exact = new double[times.length][8];
+        for (int k = 0; k < times.length; k++) {
+            for (int i = 0; i < 8; i++) {
+                exact[k][i] = at(curvature, probes[k][i], times[k]);
+            }
+        }
+        for (int size = 9; ; size = 2 * size - 1) {
+            double err = 0;
+            boolean resolved = true;
+            for (int k = 0; k < times.length; k++) {
+                double s = times[k];
+                double[] c = Chebyshev.interpolate(r -> at(curvature, r, s), 0, radius, size);
+                resolved &= Chebyshev.resolved(c);
+                for (int i = 0; i < 8; i++) {
+                    double r = probes[k][i];
+                    err = Math.max(err, Math.abs(exact[k][i] - Chebyshev.value(c, Chebyshev.reference(r, 0, radius)))
+                        + 8 * EPS * Chebyshev.absSum(c));
+                }
+            }
+            if (resolved || 10 * err <= limit) {
+                return new double[] {size, 10 * err};
+            }
+            if (size >= 257) {
+                throw new OracleException(Reason.DATA_NOT_RESOLVED, "source: its second time derivative is too rough in"
+                    + " r for a Chebyshev series of degree 256 (error " + 10 * err + " K/s^3 for a limit of " + limit
+                    + "); smooth the source's change in time or loosen the tolerance");
+            }
+        }
     }
 
     /**
@@ -676,8 +671,11 @@ final class RadialChange {
         return 0.5 * h * sum * (n + 1) / Math.pow(radius, n + 1);
     }
 
-    /** The slowest mode's Duhamel integral of F_tt on doubled panels of its window. */
-    private double doubledIntegral(double[] row, double[] nodes, double lambda, double t, double density) {
+    /**
+     * The slowest mode's Duhamel integral of F_tt on a second grid: its window at twice the density, in uniform
+     * panels (at least 20), against which the graded grid's result is checked.
+     */
+    private double uniformIntegral(double[] row, double[] nodes, double lambda, double t, double density) {
         int k = window(lambda, t);
         double width = t / Math.pow(2, k);
         int panels = 2 * (int) Math.max(10, Math.ceil(width * density));
@@ -695,5 +693,49 @@ final class RadialChange {
             }
         }
         return sum;
+    }
+
+    /**
+     * out[i] += int_0^t e^{-lambda_i (t - s)} (F_tt)_i(s) ds for first <= i < last (lambda_i > 0), by 20-point
+     * Gauss-Legendre on a graded grid toward t shared by every mode: annulus j, t - t/2^j < s < t - t/2^(j+1), with
+     * max(5, width x density) panels, down to the innermost window of the fastest mode, t/2^K wide with
+     * max(10, width x density) panels (all times {@code refine}). Mode i, of window k (lambda_i t / 2^k in
+     * (40, 80]), sums annuli k..K, where lambda_i times a panel's width is at most 8, as on the windows of
+     * {@link ScheduleIntegral}; each node's values of F_tt serve every mode.
+     */
+    private void duhamel(double[][] rows, double[] lambda, int first, int last, double t, double density, int refine,
+        double[] cheb, double[] out) {
+        int start = Integer.MAX_VALUE;
+        int top = -1;
+        int[] windowOf = new int[last];
+        for (int i = first; i < last; i++) {
+            if (lambda[i] > 0) {
+                windowOf[i] = window(lambda[i], t);
+                start = Math.min(start, windowOf[i]);
+                top = Math.max(top, windowOf[i]);
+            }
+        }
+        double[] f = new double[cheb.length];
+        for (int j = start; j <= top; j++) {
+            double lo = t - t / Math.pow(2, j);
+            double hi = j < top ? t - t / Math.pow(2, j + 1) : t;
+            int panels = refine * (int) Math.max(j < top ? 5 : 10, Math.ceil((hi - lo) * density));
+            double h = (hi - lo) / panels;
+            for (int p = 0; p < panels; p++) {
+                double mid = lo + (p + 0.5) * h;
+                for (int node = 0; node < RULE.nodes.length; node++) {
+                    double s = mid + 0.5 * h * RULE.nodes[node];
+                    for (int q = 0; q < cheb.length; q++) {
+                        f[q] = at(curvature, cheb[q], s);
+                    }
+                    double w = 0.5 * h * RULE.weights[node];
+                    for (int i = first; i < last; i++) {
+                        if (lambda[i] > 0 && windowOf[i] <= j) {
+                            out[i] += w * Math.exp(-lambda[i] * (t - s)) * dot(rows[i], f);
+                        }
+                    }
+                }
+            }
+        }
     }
 }

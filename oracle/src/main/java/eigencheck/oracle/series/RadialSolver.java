@@ -624,6 +624,7 @@ public final class RadialSolver implements SpatialSolver {
         private final double meanBound;
         // the response to a source changing unevenly in time (null before t > 0 or without one)
         private final RadialChange.At changeNow;
+        private volatile double absWeighted = -1;
 
         RadialSlice(double t) {
             this.t = t;
@@ -757,7 +758,7 @@ public final class RadialSolver implements SpatialSolver {
                         }
                         want = Math.min(2 * sz, RadialChange.CAP);
                     }
-                    changeNow = change.at(t, beta, norm, changed);
+                    changeNow = change.at(t, beta, norm, changed, budget);
                 } else {
                     changeNow = null;
                 }
@@ -860,11 +861,14 @@ public final class RadialSolver implements SpatialSolver {
         }
 
         private double weightedSum() {
-            double s = 0;
-            for (double w : weighted) {
-                s += Math.abs(w);
+            if (absWeighted < 0) {
+                double s = 0;
+                for (double w : weighted) {
+                    s += Math.abs(w);
+                }
+                absWeighted = s; // a benign race: every thread computes the same sum
             }
-            return s;
+            return absWeighted;
         }
 
         /**
