@@ -114,10 +114,15 @@ public final class RadialModes {
 
     /** (sin z/z - cos z) - Bi sin z/z: zero at the sphere roots, accurate for small z. */
     private static double sphere(double z, double biot) {
-        double sinc = Math.sin(z) / z;
-        double difference;
+        return sincMinusCos(z) - biot * Math.sin(z) / z;
+    }
+
+    /**
+     * sin(z)/z - cos(z), by its series sum_{k>=1} (-1)^(k+1) 2k z^(2k)/(2k+1)! below z = 0.5, where the
+     * difference would cancel (z sincMinusCos(z) = sin z - z cos z, the sphere mode's weighted integral).
+     */
+    public static double sincMinusCos(double z) {
         if (z < 0.5) {
-            // sin z/z - cos z = sum_{k>=1} (-1)^(k+1) 2k z^(2k)/(2k+1)!
             double term = 1;
             double sum = 0;
             double z2 = z * z;
@@ -127,11 +132,9 @@ public final class RadialModes {
                 factorial *= (2 * k) * (2 * k + 1);
                 sum += ((k & 1) == 1 ? 1 : -1) * 2 * k * term / factorial;
             }
-            difference = sum;
-        } else {
-            difference = sinc - Math.cos(z);
+            return sum;
         }
-        return difference - biot * sinc;
+        return Math.sin(z) / z - Math.cos(z);
     }
 
     /** The mode X_n(r) for z_n = mu R (finite at r = 0: J0(0) = 1, sin(x)/x -> 1). */

@@ -63,6 +63,7 @@ final class RadialChange {
     private final double rateAtStart;
     private final double curvatureSup;
     private final double weightRoot;
+    private final double horizon;
 
     /**
      * @param h the surface's heat transfer coefficient: infinite for a temperature surface, 0 for a flux
@@ -90,6 +91,7 @@ final class RadialChange {
         this.surfaceLag = h == Double.POSITIVE_INFINITY || h == 0 ? 0 : k / h;
         this.mode = mode;
         this.weightRoot = Math.sqrt(Math.pow(radius, n + 1) / (n + 1));
+        this.horizon = horizon;
         double s0 = 0;
         double s1 = 0;
         double s2 = 0;
@@ -295,85 +297,129 @@ final class RadialChange {
         final double quadratureSlope;
 
         private At(double t, double[] beta, double[] norm, int count, double budget) {
-            this.first = new Inverse(r -> change(r, t));
-            Inverse rateSolve = new Inverse(r -> at(rate, r, t));
-            Inverse nested = new Inverse(rateSolve::value);
+            double[] lambda = new double[count];
+            for (int i = 0; i < count; i++) {
+                lambda[i] = alpha * beta[i] * beta[i];
+            }
+            int nq = (int) Math.ceil(1.6 * count + 40);
+            double[][] matrix = projections(beta, norm, count, nq);
+            double[] nodes = radialNodes(nq);
+            int fine = nq + nq / 4 + 8;
+            double[] fineNodes = radialNodes(fine);
+            double[][] fineMatrix = projections(beta, norm, count, fine);
+            // the slow modes (lambda T < 1, a body that keeps its heat) are taken out of the quasi-static solves,
+            // which would otherwise divide by lambda^2, and solved by Duhamel's integral of F itself
+            int slowCount = 0;
+            while (slowCount < count && (lambda[slowCount] == 0 || lambda[slowCount] * horizon < 1)) {
+                slowCount++;
+            }
+            int[] slow = new int[slowCount];
+            int ns = 0;
+            for (int i = 0; i < slowCount; i++) {
+                if (lambda[i] > 0) {
+                    slow[ns++] = i;
+                }
+            }
+            slow = java.util.Arrays.copyOf(slow, ns);
+            double[] sweep = new double[2];
+            DoubleUnaryOperator change = r -> change(r, t);
+            DoubleUnaryOperator rateNow = r -> at(rate, r, t);
+            double[] changeSlow = slowProjections(change, slow, matrix, fineMatrix, nodes, fineNodes, sweep, 0);
+            double[] rateSlow = slowProjections(rateNow, slow, matrix, fineMatrix, nodes, fineNodes, sweep, 1);
+            this.first = new Inverse(without(change, slow, changeSlow, beta));
+            Inverse rateSolve = new Inverse(without(rateNow, slow, rateSlow, beta));
+            // A^+ of the rate's fast part, its slow content (rounding) taken out again before the second solve
+            double[] innerSlow = slowProjections(rateSolve::value, slow, matrix, fineMatrix, nodes, fineNodes, sweep, 1);
+            Inverse nested = new Inverse(without(rateSolve::value, slow, innerSlow, beta));
             // the error of the inner solve passes through the outer one with its gain
             double gain = 2 * (radius * radius + surfaceLag * radius) / ((n + 1) * alpha);
             this.second = nested;
             double innerValue = gain * rateSolve.error;
             double innerSlope = 2 * radius * rateSolve.error / ((n + 1) * alpha);
+            // a slow projection's error e leaves e X_i / lambda_i (first solve) or e X_i / lambda_i (second, from the
+            // re-projected inner solve) behind: |X_i| <= 1, |X_i'| <= beta_i
+            double slowValue = 0;
+            double slowSlope = 0;
+            for (int i : slow) {
+                double e = (sweep[0] + sweep[1]) / lambda[i];
+                slowValue += e;
+                slowSlope += e * beta[i];
+            }
             double density = density(t);
             if (flux) {
                 double coarse = meanRise(t, density, 1);
-                double fine = meanRise(t, density, 2);
-                this.mean = fine;
-                this.meanError = 10 * Math.abs(fine - coarse) + 1e-14 * t * sup;
+                double fineRise = meanRise(t, density, 2);
+                this.mean = fineRise;
+                this.meanError = 10 * Math.abs(fineRise - coarse) + 1e-14 * t * sup;
             } else {
                 this.mean = 0;
                 this.meanError = 0;
+            }
+            // the fast modes' rates; the slow ones' are 0 from here on and their modes come from F directly
+            double[] fast = lambda.clone();
+            for (int i : slow) {
+                fast[i] = 0;
             }
             // F_tt(., s) as a Chebyshev interpolant of d points in r; its projections through the matrix
             // G[i][j] = <l_j, X_i> / ||X_i||^2 (l_j the Lagrange polynomials), by Gauss-Legendre with nq nodes
             double gauge = 0;
             double gaugeSlope = 0;
             for (int i = 0; i < count; i++) {
-                double l = alpha * beta[i] * beta[i];
-                if (l > 0) {
-                    double weight = weightRoot / (Math.sqrt(norm[i]) * Math.pow(l, 3));
+                if (fast[i] > 0) {
+                    double weight = weightRoot / (Math.sqrt(norm[i]) * Math.pow(fast[i], 3));
                     gauge += weight;
                     gaugeSlope += weight * beta[i];
                 }
             }
-            double[] represented = radialSize(t, Math.min(budget / (16 * gauge), budget / (16 * radius * gaugeSlope)));
+            double[] represented = gauge > 0 ? radialSize(t, Math.min(budget / (16 * gauge), budget / (16 * radius
+                * gaugeSlope))) : new double[] {9, 0};
             int d = (int) represented[0];
             double representation = represented[1];
-            int nq = (int) Math.ceil(1.6 * count + 40);
-            double[][] matrix = projections(beta, norm, count, nq);
             double[][] lagrange = lagrangeProjections(matrix, nq, d);
-            double[] nodes = radialNodes(nq);
             double[] cheb = Chebyshev.nodes(0, radius, d);
             double[] initialRate = new double[nq];
             for (int q = 0; q < nq; q++) {
                 initialRate[q] = at(rate, nodes[q], 0);
             }
             double[] z = new double[count];
-            double[] lambda = new double[count];
             int slowest = -1;
             for (int i = 0; i < count; i++) {
-                lambda[i] = alpha * beta[i] * beta[i];
-                if (lambda[i] > 0) {
+                if (fast[i] > 0) {
                     double p = dot(matrix[i], initialRate);
-                    z[i] = Math.exp(-lambda[i] * t) * p / (lambda[i] * lambda[i]);
-                    if (slowest < 0 || lambda[i] < lambda[slowest]) {
+                    z[i] = Math.exp(-fast[i] * t) * p / (fast[i] * fast[i]);
+                    if (slowest < 0 || fast[i] < fast[slowest]) {
                         slowest = i;
                     }
                 }
             }
             double[] integrals = new double[count];
-            duhamel(lagrange, lambda, 0, count, t, density, 1, cheb, integrals);
+            duhamel(lagrange, fast, 0, count, t, density, 1, cheb, integrals);
             double sumValue = 0;
             double sumSlope = 0;
             for (int i = 0; i < count; i++) {
-                if (lambda[i] > 0) {
-                    z[i] += integrals[i] / (lambda[i] * lambda[i]);
-                    double weight = weightRoot / (Math.sqrt(norm[i]) * Math.pow(lambda[i], 3));
+                if (fast[i] > 0) {
+                    z[i] += integrals[i] / (fast[i] * fast[i]);
+                    double weight = weightRoot / (Math.sqrt(norm[i]) * Math.pow(fast[i], 3));
                     sumValue += weight;
                     sumSlope += weight * beta[i];
                 }
             }
+            double[] direct = slowModes(slow, lambda, matrix, nodes, t, density);
+            for (int k = 0; k < slow.length; k++) {
+                int i = slow[k];
+                z[i] = direct[2 * k];
+                slowValue += direct[2 * k + 1] + 10 * sweep[0] * t;
+                slowSlope += (direct[2 * k + 1] + 10 * sweep[0] * t) * beta[i];
+            }
             this.modes = z;
             double relative = 0;
             if (slowest >= 0 && curvatureSup > 0) {
-                double l = lambda[slowest];
+                double l = fast[slowest];
                 double doubled = uniformIntegral(lagrange[slowest], cheb, l, t, density);
                 double scaleOf = curvatureSup * weightRoot / Math.sqrt(norm[slowest]) / l;
                 relative = Math.abs(doubled - integrals[slowest]) / scaleOf + 1e-14;
             }
             // the radial rule against one 25 % finer, at s = t and t/2 and for the initial rate
-            int fine = nq + nq / 4 + 8;
-            double[] fineNodes = radialNodes(fine);
-            double[][] fineMatrix = projections(beta, norm, count, fine);
             double[][] fineLagrange = lagrangeProjections(fineMatrix, fine, d);
             double radial = 0;
             double radialSlope = 0;
@@ -401,14 +447,13 @@ final class RadialChange {
                     fineM = fineLagrange;
                 }
                 for (int i = 0; i < count; i++) {
-                    if (lambda[i] == 0) {
+                    if (fast[i] == 0) {
                         continue;
                     }
                     double e = 10 * Math.abs(dot(coarseM[i], coarseF) - dot(fineM[i], fineF));
                     // the curvature's projection error acts through int e^{-lambda (t-s)} ds / lambda^2 <= 1/lambda^3,
                     // the initial rate's through e^{-lambda t} / lambda^2
-                    double effect = s < 0 ? e * Math.exp(-lambda[i] * t) / (lambda[i] * lambda[i])
-                        : e / Math.pow(lambda[i], 3);
+                    double effect = s < 0 ? e * Math.exp(-fast[i] * t) / (fast[i] * fast[i]) : e / Math.pow(fast[i], 3);
                     worst[i] = Math.max(worst[i], effect);
                 }
             }
@@ -420,17 +465,31 @@ final class RadialChange {
             double rounding = 0;
             double roundingSlope = 0;
             for (int i = 0; i < count; i++) {
-                if (lambda[i] > 0) {
+                if (fast[i] > 0) {
                     double r = 4 * EPS * nq * (curvatureSup * t * absSum(lagrange[i]) + rateAtStart * absSum(matrix[i]))
-                        / (lambda[i] * lambda[i]);
+                        / (fast[i] * fast[i]);
                     rounding += r;
                     roundingSlope += r * beta[i];
                 }
             }
             // an error e of the interpolant in F_tt moves mode i by at most e ||1|| / (||X_i|| lambda_i^3)
             double spread = relative * curvatureSup + representation;
-            this.quadrature = spread * sumValue + radial + rounding + innerValue;
-            this.quadratureSlope = spread * sumSlope + radialSlope + roundingSlope + innerSlope;
+            this.quadrature = spread * sumValue + radial + rounding + innerValue + slowValue;
+            this.quadratureSlope = spread * sumSlope + radialSlope + roundingSlope + innerSlope + slowSlope;
+        }
+
+        /** g minus sum over the slow modes of p_k X_k. */
+        private DoubleUnaryOperator without(DoubleUnaryOperator g, int[] slow, double[] p, double[] beta) {
+            if (slow.length == 0) {
+                return g;
+            }
+            return r -> {
+                double v = g.applyAsDouble(r);
+                for (int k = 0; k < slow.length; k++) {
+                    v -= p[k] * mode.applyAsDouble(beta[slow[k]] * r);
+                }
+                return v;
+            };
         }
 
         /** A^+ F - A^+2 F_t + m at r. */
@@ -669,6 +728,71 @@ final class RadialChange {
             }
         }
         return 0.5 * h * sum * (n + 1) / Math.pow(radius, n + 1);
+    }
+
+    /**
+     * The projections of g on the slow modes by the nq-node rule; the largest difference to the finer
+     * rule, times 10, plus rounding (4 eps nq sup |g| sum |M|) goes to {@code sweep[slot]} (kept as the maximum).
+     */
+    private double[] slowProjections(DoubleUnaryOperator g, int[] slow, double[][] m, double[][] fineM, double[] nodes,
+        double[] fineNodes, double[] sweep, int slot) {
+        double[] p = new double[slow.length];
+        if (slow.length == 0) {
+            return p;
+        }
+        double[] v = new double[nodes.length];
+        double size = 0;
+        for (int q = 0; q < nodes.length; q++) {
+            v[q] = g.applyAsDouble(nodes[q]);
+            size = Math.max(size, Math.abs(v[q]));
+        }
+        double[] fv = new double[fineNodes.length];
+        for (int q = 0; q < fineNodes.length; q++) {
+            fv[q] = g.applyAsDouble(fineNodes[q]);
+        }
+        for (int k = 0; k < slow.length; k++) {
+            int i = slow[k];
+            p[k] = dot(m[i], v);
+            double e = 10 * Math.abs(p[k] - dot(fineM[i], fv)) + 4 * EPS * nodes.length * size * absSum(m[i]);
+            sweep[slot] = Math.max(sweep[slot], e);
+        }
+        return p;
+    }
+
+    /**
+     * The slow modes' full response int_0^t e^{-lambda (t - s)} F_i(s) ds, on uniform panels over [0, t] at the
+     * density (at least 10) against twice as many: [value, 10 |difference| + rounding] per mode.
+     */
+    private double[] slowModes(int[] slow, double[] lambda, double[][] m, double[] nodes, double t, double density) {
+        double[] out = new double[2 * slow.length];
+        if (slow.length == 0) {
+            return out;
+        }
+        double[][] sums = new double[2][slow.length];
+        double[] f = new double[nodes.length];
+        for (int refine = 1; refine <= 2; refine++) {
+            int panels = refine * (int) Math.max(10, Math.ceil(t * density));
+            double h = t / panels;
+            for (int p = 0; p < panels; p++) {
+                double mid = (p + 0.5) * h;
+                for (int node = 0; node < RULE.nodes.length; node++) {
+                    double s = mid + 0.5 * h * RULE.nodes[node];
+                    for (int q = 0; q < nodes.length; q++) {
+                        f[q] = change(nodes[q], s);
+                    }
+                    double w = 0.5 * h * RULE.weights[node];
+                    for (int k = 0; k < slow.length; k++) {
+                        int i = slow[k];
+                        sums[refine - 1][k] += w * Math.exp(-lambda[i] * (t - s)) * dot(m[i], f);
+                    }
+                }
+            }
+        }
+        for (int k = 0; k < slow.length; k++) {
+            out[2 * k] = sums[1][k];
+            out[2 * k + 1] = 10 * Math.abs(sums[1][k] - sums[0][k]) + 1e-14 * t * sup * absSum(m[slow[k]]);
+        }
+        return out;
     }
 
     /**

@@ -79,6 +79,9 @@ public final class RadialSolver implements SpatialSolver {
     private final Expression curvature;
     private final double thirdMax;
     private final ScheduleIntegral duhamel;
+    // the rate r itself, for the slow modes (lambda T < 1) that take it directly, and max |r|
+    private final ScheduleIntegral rateIntegral;
+    private final double slopeMax;
     // P1 and P2 as polynomials in r^2 (index j: the coefficient of r^(2j))
     private final double[] lag1;
     private final double[] lag2;
@@ -165,12 +168,16 @@ public final class RadialSolver implements SpatialSolver {
             Expression third = curvature.derivative("t");
             this.thirdMax = CommonLevel.sizes(curvature, third, third, timeHorizon)[1];
             this.duhamel = new ScheduleIntegral(third);
+            this.rateIntegral = new ScheduleIntegral(slope);
+            this.slopeMax = CommonLevel.sizes(slope, slope, slope, timeHorizon)[0];
         } else {
             this.level = null;
             this.slope = null;
             this.curvature = null;
             this.thirdMax = 0;
             this.duhamel = null;
+            this.rateIntegral = null;
+            this.slopeMax = 0;
             this.lag1 = new double[] {0};
             this.lag2 = new double[] {0};
             this.fluxShape = null;
@@ -497,9 +504,11 @@ public final class RadialSolver implements SpatialSolver {
         if (!sphere) {
             return (b * Bessel.j1(beta * b) - a * Bessel.j1(beta * a)) / beta;
         }
-        // int r^2 sin(beta r)/(beta r) dr = [sin(beta r) - beta r cos(beta r)]/beta^3
-        return ((Math.sin(beta * b) - beta * b * Math.cos(beta * b)) - (Math.sin(beta * a) - beta * a
-            * Math.cos(beta * a))) / (beta * beta * beta);
+        // int r^2 sin(beta r)/(beta r) dr = [sin(beta r) - beta r cos(beta r)]/beta^3, the bracket by a series
+        // at small beta r (where it is about (beta r)^3/3 and would cancel: a body that keeps its heat)
+        double x = beta * b;
+        double y = beta * a;
+        return (x * RadialModes.sincMinusCos(x) - (a == 0 ? 0 : y * RadialModes.sincMinusCos(y))) / (beta * beta * beta);
     }
 
     @Override
@@ -782,20 +791,42 @@ public final class RadialSolver implements SpatialSolver {
                     ScheduleIntegral.At integrals = duhamel.at(t);
                     double sumValue = 0;
                     double sumGradient = 0;
+                    ScheduleIntegral.At rates = null;
+                    double slowValue = 0;
+                    double slowGradient = 0;
+                    double slowest = Double.POSITIVE_INFINITY;
                     for (int i = 0; i < particular; i++) {
                         double l = alpha * beta[i] * beta[i];
                         if (l == 0) {
                             continue;
                         }
                         double one = projection(i, beta, norm);
+                        if (l * horizon < 1) {
+                            // a slow mode (a body that keeps its heat): its share of -r P1 + r' P2 + v is solved from
+                            // the rate itself, -one int_0^t e^{-l (t - s)} r(s) ds, instead of dividing r'' by l^3
+                            if (rates == null) {
+                                rates = rateIntegral.at(t);
+                            }
+                            double adjust = (slope.value(0) * one / l - curvature.value(0) * one / (l * l)) * Math.exp(-l * t);
+                            double direct = one * rates.value(l);
+                            double lags = slopeNow * one / l - curvatureNow * one / (l * l);
+                            weighted[i] += (i < mm ? -adjust : 0) - direct + lags;
+                            // the quadrature's measured error, and rounding of the terms that cancel the lags' share
+                            double e = rates.relativeError(l, slopeMax) * slopeMax * Math.abs(one) / l
+                                + 8 * EPS * (Math.abs(adjust) + Math.abs(direct) + Math.abs(slopeNow * one / l)
+                                + Math.abs(curvatureNow * one / (l * l)));
+                            slowValue += e;
+                            slowGradient += e * beta[i];
+                            continue;
+                        }
                         weighted[i] -= one / (l * l) * integrals.value(l);
                         sumValue += Math.abs(one) / (l * l * l);
                         sumGradient += Math.abs(one) / (l * l * l) * beta[i];
+                        slowest = Math.min(slowest, l);
                     }
-                    double slowest = alpha * beta[flux ? 1 : 0] * beta[flux ? 1 : 0];
                     double relative = integrals.relativeError(slowest, thirdMax);
-                    quadrature = relative * thirdMax * sumValue;
-                    quadratureGradient = relative * thirdMax * sumGradient;
+                    quadrature = relative * thirdMax * sumValue + slowValue;
+                    quadratureGradient = relative * thirdMax * sumGradient + slowGradient;
                 }
                 double changeBound = 0;
                 double changeGradient = 0;

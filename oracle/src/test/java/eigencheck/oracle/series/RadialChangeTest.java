@@ -38,7 +38,8 @@ class RadialChangeTest {
      * w = 2 t + 4 r^2, which changes in time differently at every radius; u_r = 40 r cos w, and the
      * cylinder's shell mean is 10 + 5 (cos w(a) - cos w(b)) / (4 (b^2 - a^2)) (int r sin w dr = -cos w / 8).
      * Every radial route: the cylinder with each surface kind, the sphere with a flux surface (the direct
-     * series) and with a fixed temperature (the slab mapping).
+     * series) and with a fixed temperature (the slab mapping), and both at Bi = 0.0025, where a body keeps its
+     * heat and the slowest mode is solved from the source directly.
      */
     @Test
     void nonSeparableChangeInEveryRadialRoute() {
@@ -47,7 +48,10 @@ class RadialChangeTest {
             {new Cylinder(RADIUS), Manufactured.Face.robin(3)},
             {new Cylinder(RADIUS), Manufactured.Face.neumann()},
             {new Sphere(RADIUS), Manufactured.Face.neumann()},
-            {new Sphere(RADIUS), Manufactured.Face.dirichlet()}};
+            {new Sphere(RADIUS), Manufactured.Face.dirichlet()},
+            // Bi = 0.0025: the first mode is slow (lambda T = 0.03) and is taken out of the quasi-static steps
+            {new Cylinder(RADIUS), Manufactured.Face.robin(0.01)},
+            {new Sphere(RADIUS), Manufactured.Face.robin(0.01)}};
         for (Object[] route : routes) {
             Domain domain = (Domain) route[0];
             Problem p = Manufactured.radial(u, domain, MATERIAL, (Manufactured.Face) route[1]);
@@ -127,6 +131,33 @@ class RadialChangeTest {
                 double gb = slice.gradient(new double[] {r}, 0, out, 0);
                 assertTrue(Math.abs(ga.value() - out[0]) <= ga.bound() + gb, "du/dr at r = " + r + ", t = " + t
                     + ": " + ga + " against " + out[0] + " +- " + gb);
+            }
+        }
+    }
+
+    /**
+     * A rod whose slowest mode has lambda_1 = 0.0040 / s: prepared for 200 s it is a slow mode (lambda T = 0.8,
+     * solved from the source directly), prepared for 300 s a fast one (through the quasi-static steps). The
+     * two splittings must agree within their bounds at t = 60 s and 180 s (two routes, common practice).
+     */
+    @Test
+    void slowAndFastTreatmentsOfTheFirstModeAgree() {
+        Problem p = new Problem(new Cylinder(0.02), new Material(45, 3.8e6), Expression.parse("20", "r"),
+            Expression.parse("4e7*exp(-(r/0.006)^2)*(1 - exp(-t/20))*(1 + 0.5*sin(t/15))", "r", "t"),
+            Map.of(Side.SURFACE, new BoundaryCondition.Robin(150, Expression.parse("20", "t"))));
+        Oracle slow = Oracle.prepare(p, 200, 1e-10);
+        Oracle fast = Oracle.prepare(p, 300, 1e-10);
+        for (double t : new double[] {60, 180}) {
+            for (double r : new double[] {0, 0.007, 0.02}) {
+                Evaluation a = slow.temperature(r, t);
+                Evaluation b = fast.temperature(r, t);
+                assertTrue(Math.abs(a.value() - b.value()) <= a.bound() + b.bound(), "u at r = " + r + ", t = " + t
+                    + ": " + a + " against " + b);
+                assertTrue(a.bound() <= 1e-10 * slow.temperatureScale() && b.bound() <= 1e-10 * fast.temperatureScale());
+                Evaluation ga = slow.gradient(new double[] {r}, t)[0];
+                Evaluation gb = fast.gradient(new double[] {r}, t)[0];
+                assertTrue(Math.abs(ga.value() - gb.value()) <= ga.bound() + gb.bound(), "du/dr at r = " + r
+                    + ", t = " + t + ": " + ga + " against " + gb);
             }
         }
     }

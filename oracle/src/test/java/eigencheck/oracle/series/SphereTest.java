@@ -131,9 +131,11 @@ class SphereTest {
 
     @Test
     void veryLowBiotNumbersAreRefusedRatherThanAnsweredLoosely() {
-        // at Bi = 1e-4 with a source that changes in time unevenly, the first eigenvalue is nearly zero and the
-        // quasi-static subtractions of the radial series (which takes this case) divide by it: the cancellation
-        // costs more than the budget of 1e-10 and the oracle must refuse (when preparing or when asked), not guess
+        // at Bi = 1e-4 the first eigenvalue is nearly zero (1/lambda = 1250 s); the ambient here moves by 5000 K,
+        // and the slow mode's share of the moving level's lags, about r' / lambda^2 = 8e9 K, must cancel against
+        // the closed-form lag: its rounding alone (1.4e-5 K) exceeds the budget of 1e-10 x scale = 9e-7 K (the
+        // source's uneven change alone is certified to 5e-9): the oracle must refuse (when preparing or when
+        // asked), not guess
         double radius = 0.5;
         double h = 4e-4;
         Problem p = sphere(radius, new Material(2, 3), "1 + r^2", "3*(-exp(-t)*(1 + r^2)) - 12*exp(-t)",
