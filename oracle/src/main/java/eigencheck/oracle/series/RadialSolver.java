@@ -204,7 +204,10 @@ public final class RadialSolver implements SpatialSolver {
         }
         double data = valueOf(surface.data(), radius);
         Expression q = source;
-        double sourceIntegral = integrate(r -> valueOf(q, r) * Math.pow(r, n));
+        // int_0^R Q r^n dr = R^n J_Q(R), on the panels that resolve Q (a fixed rule misses a narrow heater)
+        RadialChange.Flux sourceFlux = RadialChange.radialFlux(r -> valueOf(q, r), n, radius,
+            (n + 1) * Math.abs(data));
+        double sourceIntegral = Math.pow(radius, n) * sourceFlux.j().applyAsDouble(radius);
         if (surface instanceof BoundaryCondition.Dirichlet) {
             biot = Double.POSITIVE_INFINITY;
             flux = false;
@@ -225,15 +228,8 @@ public final class RadialSolver implements SpatialSolver {
             }
         }
         // J(r) = r int_0^1 s^n Qt(r s) ds, Qt = Q - rho c A
-        GaussLegendre g = GaussLegendre.of(40);
-        java.util.function.DoubleUnaryOperator jExact = r -> {
-            double sum = 0;
-            for (int i = 0; i < g.nodes.length; i++) {
-                double s = 0.5 * (g.nodes[i] + 1);
-                sum += 0.5 * g.weights[i] * (n == 1 ? s : s * s) * (valueOf(q, r * s) - rhoC * drift);
-            }
-            return r * sum;
-        };
+        RadialChange.Flux fluxOf = RadialChange.radialFlux(r -> valueOf(q, r) - rhoC * drift, n, radius);
+        java.util.function.DoubleUnaryOperator jExact = fluxOf.j();
         double[] c = null;
         for (int n = 17; n <= 1025; n = 2 * n - 1) {
             c = Chebyshev.interpolate(jExact, 0, radius, n);
@@ -256,8 +252,9 @@ public final class RadialSolver implements SpatialSolver {
             err = Math.max(err, Math.abs(jExact.applyAsDouble(r) - Chebyshev.value(j, Chebyshev.reference(r, 0, radius))));
         }
         double jScale = Chebyshev.absSum(j);
-        this.gradientError = (10 * err + 8 * EPS * jScale) / k;
-        this.steadyError = gradientError * radius;
+        this.gradientError = (10 * err + 8 * EPS * jScale + fluxOf.error()) / k;
+        // with a flux surface the drift carries the source integral's quadrature error over the horizon
+        this.steadyError = gradientError * radius + (flux ? (n + 1) * sourceFlux.error() * horizon / (radius * rhoC) : 0);
         double jR = Chebyshev.value(j, 1);
         if (surface instanceof BoundaryCondition.Dirichlet) {
             surfaceValue = data;
@@ -463,15 +460,6 @@ public final class RadialSolver implements SpatialSolver {
             throw new OracleException(Reason.DATA_NOT_FINITE, "oracle: " + e.source() + " is " + v + " at r = " + r);
         }
         return v;
-    }
-
-    private double integrate(java.util.function.DoubleUnaryOperator f) {
-        GaussLegendre g = GaussLegendre.of(64);
-        double sum = 0;
-        for (int i = 0; i < g.nodes.length; i++) {
-            sum += 0.5 * radius * g.weights[i] * f.applyAsDouble(0.5 * radius * (g.nodes[i] + 1));
-        }
-        return sum;
     }
 
     /** P(r) = P(R) + (K(R) - K(r))/k. */
