@@ -15,9 +15,15 @@ import java.util.List;
  * Theory and Approximation Practice</i>, SIAM, 2013, ch. 3-4: coefficients of a smooth function
  * decay geometrically, and the sum of the discarded ones estimates the error). It is an estimate,
  * not a proof; the solver checks it again at random points and reports the measured difference.
+ * A panel must also match the family at the points of a uniform scan of {@link #SCAN} points over
+ * [a, b] that fall inside it, so that a feature narrower than the first Chebyshev sampling (a heater
+ * 1/1000 of the length wide between two nodes) is found and split for instead of being read as
+ * nothing; features narrower than about (b - a)/4096 can still pass unseen.
  */
 final class PiecewiseFit {
     static final int MAX_POINTS = 129;
+    /** Points of the uniform scan every accepted panel is checked against. */
+    static final int SCAN = 4097;
     private static final int[] POINTS = {9, 17, 33, 65, 129};
 
     /** A family of functions of x evaluated together. */
@@ -35,7 +41,13 @@ final class PiecewiseFit {
     private final Family family;
     private final double relTol;
     private final double minWidth;
-    private final double scale;
+    private double scale;
+    /** The largest |value| of the family on the scan. */
+    double scanMax;
+    /** The scan: its interval, and the family's values there [member][point]. */
+    private double scanFrom;
+    private double scanStep;
+    private double[][] scanValues;
     final List<Panel> panels = new ArrayList<>();
     double maxTail;
     double unresolvedWidth;
@@ -54,7 +66,11 @@ final class PiecewiseFit {
      * @throws NonFiniteException if a sample is NaN or infinite
      */
     static PiecewiseFit fit(Family family, double a, double b, double scale, double relTol, double minWidth) {
-        PiecewiseFit f = new PiecewiseFit(family, scale > 0 ? scale : 1, relTol, minWidth);
+        PiecewiseFit f = new PiecewiseFit(family, scale, relTol, minWidth);
+        f.scan(a, b);
+        // the scale the tolerance is relative to includes what the scan saw (a narrow feature the caller's
+        // sampling missed would otherwise be held to a tolerance of nothing)
+        f.scale = Math.max(scale, f.scanMax) > 0 ? Math.max(scale, f.scanMax) : 1;
         f.split(a, b);
         return f;
     }
@@ -71,6 +87,48 @@ final class PiecewiseFit {
             this.member = member;
             this.value = value;
         }
+    }
+
+    private void scan(double a, double b) {
+        int m = family.size();
+        double[] buffer = new double[m];
+        scanFrom = a;
+        scanStep = (b - a) / (SCAN - 1);
+        scanValues = new double[m][SCAN];
+        for (int j = 0; j < SCAN; j++) {
+            double x = j == SCAN - 1 ? b : a + j * scanStep;
+            family.values(x, buffer);
+            for (int i = 0; i < m; i++) {
+                if (!Double.isFinite(buffer[i])) {
+                    throw new NonFiniteException(x, i, buffer[i]);
+                }
+                scanValues[i][j] = buffer[i];
+                scanMax = Math.max(scanMax, Math.abs(buffer[i]));
+            }
+        }
+    }
+
+    /**
+     * True when the interpolants on [a, b] match the scan's values inside the panel to 100 times the
+     * larger of their tail and the tolerance, plus rounding.
+     */
+    private boolean matchesScan(double a, double b, double[][] coef, double tail) {
+        int first = (int) Math.ceil((a - scanFrom) / scanStep);
+        int last = (int) Math.floor((b - scanFrom) / scanStep);
+        for (int i = 0; i < coef.length; i++) {
+            double allowed = 100 * Math.max(tail, relTol * scale) + 16 * Math.ulp(1.0) * Chebyshev.absSum(coef[i]);
+            for (int j = Math.max(first, 0); j <= Math.min(last, SCAN - 1); j++) {
+                double x = scanFrom + j * scanStep;
+                if (x < a || x > b) {
+                    continue;
+                }
+                double r = Chebyshev.value(coef[i], Chebyshev.reference(x, a, b));
+                if (!(Math.abs(r - scanValues[i][j]) <= allowed)) {
+                    return false;
+                }
+            }
+        }
+        return true;
     }
 
     private void split(double a, double b) {
@@ -96,7 +154,7 @@ final class PiecewiseFit {
                 coef[i] = Chebyshev.fromValues(values[i]);
                 tail = Math.max(tail, tail(coef[i]));
             }
-            if (tail <= relTol * scale) {
+            if (tail <= relTol * scale && matchesScan(a, b, coef, tail)) {
                 accept(a, b, coef, true, tail);
                 return;
             }

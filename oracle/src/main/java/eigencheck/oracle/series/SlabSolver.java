@@ -167,6 +167,7 @@ public final class SlabSolver {
         double[] tNodes = sourcePoints == 1 ? new double[] {0.5 * horizon} : Chebyshev.nodes(0, horizon, sourcePoints);
         double sourceScale = sampleScale(source, tNodes);
         PiecewiseFit sourceFit = fitFamily(source, tNodes, sourceScale, "source");
+        sourceScale = Math.max(sourceScale, sourceFit.scanMax);
         int dataPoints = Math.max(data[0].length, data[1].length);
         this.nT = Math.max(sourcePoints, dataPoints);
         this.fEdges = edges(sourceFit.panels);
@@ -233,6 +234,7 @@ public final class SlabSolver {
             throw new OracleException(Reason.DATA_NOT_FINITE, "initial: \"" + initial.source()
                 + "\" is " + e.value + " at x = " + e.x + "; give a finite initial temperature on [0, L]");
         }
+        gScale = Math.max(gScale, gFit.scanMax);
         this.gEdges = edges(gFit.panels);
         this.gCoef = new double[gFit.panels.size()][];
         this.gResolved = new boolean[gFit.panels.size()];
@@ -1283,14 +1285,22 @@ public final class SlabSolver {
         return max;
     }
 
-    /** Largest difference between the represented Q/(rho c) and the expression, at random points. */
+    /** Points of the deterministic scan of the data: a feature wider than about L/4096 is seen by it. */
+    static final int SCAN = 4097;
+
+    /**
+     * Largest difference between the represented Q/(rho c) and the expression, at 96 random points and on a
+     * uniform grid of {@link #SCAN} points in x at t = 0, T/2 and T (a heater narrower than the fit's first
+     * sampling would otherwise go unseen by both the fit and its check).
+     */
     private double measureSource(Expression source, double[][][] coef) {
         SplittableRandom random = new SplittableRandom(7L);
         double max = 0;
         int points = coef.length;
-        for (int i = 0; i < 96; i++) {
-            double x = random.nextDouble() * length;
-            double t = random.nextDouble() * horizon;
+        for (int i = 0; i < 96 + 3 * SCAN; i++) {
+            boolean scan = i >= 96;
+            double x = scan ? length * ((i - 96) % SCAN) / (SCAN - 1) : random.nextDouble() * length;
+            double t = scan ? horizon * ((i - 96) / SCAN) / 2 : random.nextDouble() * horizon;
             int p = panelOf(fEdges, x);
             double s = Chebyshev.reference(x, fEdges[p], fEdges[p + 1]);
             double r = 0;
@@ -1303,12 +1313,13 @@ public final class SlabSolver {
         return max;
     }
 
+    /** As {@link #measureSource} for the initial temperature: 96 random points and the scan of x. */
     private double measureInitial() {
         SplittableRandom random = new SplittableRandom(11L);
         double[] l0 = lift0();
         double max = 0;
-        for (int i = 0; i < 96; i++) {
-            double x = random.nextDouble() * length;
+        for (int i = 0; i < 96 + SCAN; i++) {
+            double x = i < 96 ? random.nextDouble() * length : length * (i - 96) / (SCAN - 1);
             int p = panelOf(gEdges, x);
             if (!gResolved[p]) {
                 continue;

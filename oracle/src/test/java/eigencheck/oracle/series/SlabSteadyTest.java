@@ -31,6 +31,34 @@ class SlabSteadyTest {
         return new BoundaryCondition.Dirichlet(Expression.parse(Double.toString(v), "t"));
     }
 
+    /**
+     * A heater far narrower than the fit's first sampling, Q = exp(-((x - 0.37)/w)^2) with w = 3e-3, 1e-3
+     * and 3e-4 of a unit slab held at 20 degC (k = 1). Integrating twice (common practice),
+     * u = 20 + x (G1(1) - G2(1)) - (x G1(x) - G2(x)) with G1 = int_0^x Q = w sqrt(pi)/2 (erf((x - x0)/w) +
+     * erf(x0/w)) and G2 = int_0^x s Q = w^2/2 (exp(-(x0/w)^2) - exp(-((x - x0)/w)^2)) + x0 G1 (Commons Math
+     * Erf). Before the fit checked its panels against a uniform scan, the heater fell between the samples
+     * and the answer, 20 exactly, came with a bound of 1e-10 for an error of 2e-4.
+     */
+    @Test
+    void narrowHeaterIsSeenAndResolved() {
+        double x0 = 0.37;
+        for (double w : new double[] {3e-3, 1e-3, 3e-4}) {
+            Problem p = new Problem(new Slab(1), new Material(1, 1e6), Expression.parse("0", "x"),
+                Expression.parse("exp(-((x - " + x0 + ")/" + w + ")^2)", "x", "t"), Map.of(Side.XMIN, d(20), Side.XMAX,
+                d(20)), true);
+            Oracle o = Oracle.prepare(p, 0, 1e-10);
+            java.util.function.DoubleUnaryOperator g1 = x -> w * Math.sqrt(Math.PI) / 2
+                * (org.apache.commons.math3.special.Erf.erf((x - x0) / w) + org.apache.commons.math3.special.Erf.erf(x0 / w));
+            java.util.function.DoubleUnaryOperator g2 = x -> w * w / 2 * (Math.exp(-(x0 / w) * (x0 / w))
+                - Math.exp(-((x - x0) / w) * ((x - x0) / w))) + x0 * g1.applyAsDouble(x);
+            for (double x : new double[] {0.2, x0, x0 + w / 2, 0.8}) {
+                double exact = 20 + x * (g1.applyAsDouble(1) - g2.applyAsDouble(1)) - (x * g1.applyAsDouble(x)
+                    - g2.applyAsDouble(x));
+                assertCertified(exact, o.temperature(x, Double.POSITIVE_INFINITY), "w = " + w + ", x = " + x);
+            }
+        }
+    }
+
     @Test
     void uniformSourceBetweenTwoFixedTemperatures() {
         // u = T0 + (T1 - T0) x/L + Q x (L - x)/(2k)
