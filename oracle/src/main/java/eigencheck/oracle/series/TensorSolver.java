@@ -859,6 +859,19 @@ public final class TensorSolver implements SpatialSolver {
                 change = Math.max(change, Math.abs(valueAt(e, p) - v0));
             }
         }
+        if (sourcePeak != null) {
+            // the line through the scan's peak, finely: a narrow heater changes along it
+            double[] q = sourcePeak.clone();
+            q[axis] = 0;
+            double v0 = valueAt(e, q);
+            size = Math.max(size, Math.abs(v0));
+            for (int j = 1; j < 4097; j++) {
+                q[axis] = len[axis] * j / 4096;
+                double v = valueAt(e, q);
+                size = Math.max(size, Math.abs(v));
+                change = Math.max(change, Math.abs(v - v0));
+            }
+        }
         return change <= 1e-12 * Math.max(1, size) ? change : Double.POSITIVE_INFINITY;
     }
 
@@ -872,9 +885,9 @@ public final class TensorSolver implements SpatialSolver {
         double worst = 0;
         double size = 0;
         double[] p = new double[d];
-        for (int c = 0; c < 81; c++) {
+        for (int c = 0; c < 82; c++) {
             for (int i = 0; i < d; i++) {
-                p[i] = len[i] * (((c * 7 + i * 5 + 1) % 9) / 8.0);
+                p[i] = c == 81 ? (sourcePeak == null ? 0 : sourcePeak[i]) : len[i] * (((c * 7 + i * 5 + 1) % 9) / 8.0);
             }
             size = Math.max(size, Math.abs(valueAt(q, p)));
             for (int a = 0; a < along.size(); a++) {
@@ -1313,8 +1326,41 @@ public final class TensorSolver implements SpatialSolver {
         }
     }
 
-    /** The largest |Q| at 9^d points of the body (t = 0). */
+    /** Where the scan found the source's largest |Q| at t = 0 (null before the scan). */
+    private double[] sourcePeak;
+    private double sourcePeakValue;
+
+    /**
+     * A uniform scan of the source at t = 0 (513^2 points of a rectangle, 97^3 of a box): its largest |Q| and
+     * where. A heater narrower than the 9^d sampling grid would otherwise be read as no source at all.
+     */
+    private void scanSource(Expression q) {
+        int n = d == 2 ? 513 : 97;
+        int count = (int) Math.pow(n, d);
+        double[] p = new double[d];
+        double max = -1;
+        double[] at = new double[d];
+        for (int c = 0; c < count; c++) {
+            int rest = c;
+            for (int i = 0; i < d; i++) {
+                p[i] = len[i] * (rest % n) / (n - 1);
+                rest /= n;
+            }
+            double v = Math.abs(valueAt(q, p));
+            if (v > max) {
+                max = v;
+                System.arraycopy(p, 0, at, 0, d);
+            }
+        }
+        sourcePeak = at;
+        sourcePeakValue = max;
+    }
+
+    /** The largest |Q| at 9^d points of the body and on the scan (t = 0). */
     private double sourceSize(Expression q) {
+        if (sourcePeak == null) {
+            scanSource(q);
+        }
         int n = 9;
         int count = (int) Math.pow(n, d);
         double[] p = new double[d];
@@ -1327,11 +1373,14 @@ public final class TensorSolver implements SpatialSolver {
             }
             max = Math.max(max, Math.abs(valueAt(q, p)));
         }
-        return max;
+        return Math.max(max, sourcePeakValue);
     }
 
     private double scaleOf(Problem problem) {
-        double u = 0;
+        if (sourcePeak == null) {
+            scanSource(problem.source());
+        }
+        double u = sourcePeakValue * lengthScale * lengthScale / k;
         int count = gridCount();
         double[] p = new double[d];
         for (int c = 0; c < count; c++) {

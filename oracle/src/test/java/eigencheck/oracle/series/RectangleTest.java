@@ -39,6 +39,33 @@ class RectangleTest {
         return m;
     }
 
+    /**
+     * A rectangle with insulated y sides and a heater narrow in x, exp(-((x - 0.37)/w)^2) with w = 1e-3 of the
+     * length: the solution is the slab's (separation of variables, common practice), and the slab's is checked
+     * against its closed form in SlabSteadyTest. The 9 x 9 sampling once read this heater as no source at all
+     * (u = 20, bound 4e-10, error 4e-4); the scan of the source must find it.
+     */
+    @Test
+    void narrowHeaterInARectangleIsTheSlabsSolution() {
+        BoundaryCondition held = new BoundaryCondition.Dirichlet(Expression.parse("20", "y", "t"));
+        BoundaryCondition insulated = new BoundaryCondition.Neumann(Expression.parse("0", "x", "t"));
+        String heater = "exp(-((x - 0.37)/0.001)^2)";
+        Problem rect = new Problem(new Rectangle(1, 0.5), new Material(1, 1e6), Expression.parse("0", "x", "y"),
+            Expression.parse(heater, "x", "y", "t"), Map.of(Side.XMIN, held, Side.XMAX, held, Side.YMIN, insulated,
+            Side.YMAX, insulated), true);
+        Problem slab = new Problem(new eigencheck.oracle.problem.Slab(1), new Material(1, 1e6), Expression.parse("0", "x"),
+            Expression.parse(heater, "x", "t"), Map.of(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("20",
+            "t")), Side.XMAX, new BoundaryCondition.Dirichlet(Expression.parse("20", "t"))), true);
+        Oracle r = Oracle.prepare(rect, 0, 1e-10);
+        Oracle s1 = Oracle.prepare(slab, 0, 1e-10);
+        for (double x : new double[] {0.2, 0.37, 0.8}) {
+            Evaluation a = r.temperature(new double[] {x, 0.25}, Double.POSITIVE_INFINITY);
+            Evaluation b = s1.temperature(x, Double.POSITIVE_INFINITY);
+            assertTrue(b.value() - 20 > 1e-4, "the heater warms the slab: " + b);
+            assertTrue(Math.abs(a.value() - b.value()) <= a.bound() + b.bound(), "x = " + x + ": " + a + " against " + b);
+        }
+    }
+
     @Test
     void unitSquarePoissonCentreValue() {
         // -lap u = 1 on the unit square, u = 0 on the sides: u(1/2, 1/2) = 0.0736713532814 (classical
