@@ -50,6 +50,7 @@ final class RadialChange {
     private final int rAt;
     private final int tAt;
     private final int arity;
+    private final ThreadLocal<double[]> scratch;
     private final int n;
     private final double radius;
     private final double alpha;
@@ -82,6 +83,7 @@ final class RadialChange {
         this.rAt = source.variables().indexOf("r");
         this.tAt = source.variables().indexOf("t");
         this.arity = source.variables().size();
+        this.scratch = ThreadLocal.withInitial(() -> new double[arity]);
         this.sphere = sphere;
         this.n = sphere ? 2 : 1;
         this.radius = radius;
@@ -112,7 +114,8 @@ final class RadialChange {
 
     /** F, F_t or F_tt (of Q, Q_t, Q_tt) at (r, t), in K/s, K/s^2, K/s^3. */
     private double at(Expression e, double r, double t) {
-        double[] args = new double[arity];
+        // called some 10^5 times per slice from the time grid's loops: one argument array per thread
+        double[] args = scratch.get();
         if (rAt >= 0) {
             args[rAt] = r;
         }
@@ -367,7 +370,7 @@ final class RadialChange {
                 * gaugeSlope))) : new double[] {9, 0};
             int d = (int) represented[0];
             double representation = represented[1];
-            double[][] lagrange = lagrangeProjections(matrix, nq, d);
+            double[][] lagrange = lagrangeProjections(matrix, nodes, d);
             double[] cheb = Chebyshev.nodes(0, radius, d);
             double[] initialRate = new double[nq];
             for (int q = 0; q < nq; q++) {
@@ -412,7 +415,7 @@ final class RadialChange {
                 relative = Math.abs(doubled - integrals[slowest]) / scaleOf + 1e-14;
             }
             // the radial rule against one 25 % finer, at s = t and t/2 and for the initial rate
-            double[][] fineLagrange = lagrangeProjections(fineMatrix, fine, d);
+            double[][] fineLagrange = lagrangeProjections(fineMatrix, fineNodes, d);
             double radial = 0;
             double radialSlope = 0;
             double[] worst = new double[count];
@@ -564,8 +567,8 @@ final class RadialChange {
      * G[i][j] = sum_q M[i][q] l_j(r_q): the projections of the Lagrange polynomials at the d Chebyshev
      * points, l_j = sum_k V_kj T_k with V_kj = (2/d) cos(pi k (2j + 1)/(2d)) (halved at k = 0).
      */
-    private double[][] lagrangeProjections(double[][] m, int nq, int d) {
-        double[] nodes = radialNodes(nq);
+    private double[][] lagrangeProjections(double[][] m, double[] nodes, int d) {
+        int nq = nodes.length;
         double[][] v = new double[d][d];
         for (int k = 0; k < d; k++) {
             for (int j = 0; j < d; j++) {
