@@ -618,7 +618,7 @@ final class RadialChange {
      * J(r) = r int_0^1 s^n g(r s) ds = r^-n int_0^r s^n g(s) ds, the radial steady solve's flux, on P equal
      * panels of 20-point Gauss-Legendre rules in s: P doubles from 2 until J at r = R i/16 (i = 1..16)
      * agrees with 2P panels to 1e-15 of max |J| (or of R max |g| when J nearly cancels); the operator uses
-     * 2P panels and its error is 10 times the last difference (past 1024 panels, a feature narrower than
+     * P panels and its error is 10 times the last difference (past 1024 panels, a feature narrower than
      * about R/2000, that difference stands as the error). A fixed rule would not do: for a heater 1/50 of
      * the radius wide, 40 points leave 1e-5 of the answer and measure nothing.
      */
@@ -644,7 +644,8 @@ final class RadialChange {
                 max = Math.max(max, Math.abs(next[i]));
             }
             if (diff <= 1e-15 * max || max == 0) {
-                int used = 2 * panels;
+                // the coarser of the two: the difference measures its error, and it costs half
+                int used = panels;
                 double error = 10 * diff;
                 return new Flux(r -> fluxValue(g, n, r, used), error);
             }
