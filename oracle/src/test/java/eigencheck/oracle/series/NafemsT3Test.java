@@ -80,7 +80,9 @@ class NafemsT3Test {
         for (double t : new double[] {0.5, 2, 8, 20, 32}) {
             for (int i = 0; i <= 10; i++) {
                 double x = L * i / 10;
-                assertCertified(periodicReference(x, t), oracle.temperature(x, t), "T3 at x = " + x + ", t = " + t);
+                // both sides sum terms of the 100 K amplitude: below 32 of its ulps (4.5e-13) the error is rounding
+                assertCertified(periodicReference(x, t), oracle.temperature(x, t), 32 * Math.ulp(100.0),
+                    "T3 at x = " + x + ", t = " + t);
             }
         }
     }

@@ -26,12 +26,22 @@ public final class NumericAssertions {
      * 1e-14 (absolute, in the value's units).
      */
     public static void assertCertified(double exact, Evaluation e, String context) {
+        assertCertified(exact, e, 0, context);
+    }
+
+    /**
+     * As {@link #assertCertified(double, Evaluation, String)}, with tightness asked only above
+     * {@code roundingFloor} too: where the value is a sum of terms much larger than itself (a boundary
+     * amplitude of 100 K reaching a point as 1 K), both the oracle's and the reference's rounding scale
+     * with those terms, not with the value.
+     */
+    public static void assertCertified(double exact, Evaluation e, double roundingFloor, String context) {
         double error = Math.abs(e.value() - exact);
         assertTrue(error <= e.bound(), () -> context + ": error " + error + " exceeds the bound " + e.bound()
             + " (value " + e.value() + ", exact " + exact + ")");
         // Below 1e-14, or below 32 ulps of the reference itself, the "true error" is the reference's
         // own rounding and cannot be measured; tightness is asked only above that.
-        if (error > Math.max(NOISE, 32 * Math.ulp(exact))) {
+        if (error > Math.max(roundingFloor, Math.max(NOISE, 32 * Math.ulp(exact)))) {
             assertTrue(e.bound() <= TIGHTNESS * error, () -> context + ": bound " + e.bound()
                 + " is more than " + TIGHTNESS + " times the error " + error);
             synchronized (NumericAssertions.class) {
