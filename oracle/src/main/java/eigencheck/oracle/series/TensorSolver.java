@@ -7,6 +7,7 @@ import eigencheck.oracle.expr.Expression;
 import eigencheck.oracle.problem.BoundaryCondition;
 import eigencheck.oracle.problem.Material;
 import eigencheck.oracle.problem.Problem;
+import eigencheck.oracle.problem.Rectangle;
 import eigencheck.oracle.problem.Side;
 import eigencheck.oracle.problem.Slab;
 import java.util.ArrayList;
@@ -114,11 +115,33 @@ public final class TensorSolver implements SpatialSolver {
     private final SourceRemainder remainder;
     /** The blend's steady parts psi(x_a) beta(x_b), one per Dirichlet side (empty without a remainder). */
     private final List<Blend> blends = new ArrayList<>();
+    /**
+     * A box source's terms of two coordinates each (a heater line along the third axis): T_ab(x_a, x_b), the
+     * part of Q that couples axes a and b, with V (-k Laplace V = T_ab on the rectangle of those axes under
+     * their homogeneous conditions) from a rectangle solver of its own; empty otherwise.
+     */
+    private final List<PairTerm> pairs = new ArrayList<>();
+    /**
+     * The largest error of the pair terms' V where they enter face data (a temperature or convective face
+     * across their third axis), summed over the terms: by the maximum principle the face series' answer,
+     * and every later temperature, moves by no more (common practice).
+     */
+    private double pairDataError;
     /** The terms theta(t) phi(x) of a source that changes in time other than uniformly. */
     private final List<SourceSchedule> sourceTerms = new ArrayList<>();
     /** The remainder's steady series W_J = Q_r,J / (k lambda_J) on boxes for values and for gradients. */
     private RemainderSeries remainderValues;
     private RemainderSeries remainderGradients;
+
+    /**
+     * One pair term of a box's source: its axes a < b, the third axis c, T_ab over (x_a, x_b), V's slice
+     * (answers with their bounds, not refused) and the error V vouches for at any point it serves.
+     */
+    private record PairTerm(int a, int b, int c, Expression source, Slice slice, double error) {
+        Evaluation at(double xa, double xb) {
+            return slice.temperature(new double[] {xa, xb}, 0);
+        }
+    }
 
     /** One term of a side's change in time: its schedule and the face series of its shape. */
     private record Moving(SideSchedule schedule, Face shape, double mean, double input) {
@@ -295,6 +318,17 @@ public final class TensorSolver implements SpatialSolver {
                 variation += 2 * mixed[0] * lengthScale * lengthScale / k;
             } else if (d == 2 && !allFlux) {
                 split = remainderOf(q);
+            } else if (d == 3 && !allFlux) {
+                double[] triple = tripleDifference(q);
+                if (!(triple[0] <= 1e-12 * Math.max(1, triple[1]))) {
+                    throw notAdditive(along);
+                }
+                double[] left = addPairTerms(problem, q, along);
+                variation += 2 * (triple[0] + left[0]) * lengthScale * lengthScale / k;
+                // the first pair term holds the constant and its axes' own terms: a slab remains along its
+                // third axis alone
+                int third = (int) left[1];
+                along.removeIf(i -> i != third);
             } else {
                 throw notAdditive(along);
             }
@@ -308,7 +342,7 @@ public final class TensorSolver implements SpatialSolver {
             sourceDrift = valueAt(q, new double[d]) / material.volumetricHeatCapacity();
             zeroSource = true;
         }
-        if (!zeroSource && along.isEmpty()) {
+        if (!zeroSource && along.isEmpty() && pairs.isEmpty()) {
             for (int i = 0; i < d && constantAxis < 0; i++) {
                 if (!axes[i].zero) {
                     constantAxis = i;
@@ -321,7 +355,7 @@ public final class TensorSolver implements SpatialSolver {
         if (remainder != null) {
             addBlends(problem.material());
             buildRemainderSeries();
-        } else if (!zeroSource) {
+        } else if (!zeroSource && !along.isEmpty()) {
             for (int i : along) {
                 if (axes[i].zero) {
                     throw new OracleException(Reason.UNSUPPORTED, "source: varies along " + NAMES[i] + ", whose two"
@@ -332,7 +366,7 @@ public final class TensorSolver implements SpatialSolver {
             // an additive source Q(0) + sum_i (Q along axis i - Q(0)): the constant goes with the first axis
             double q0 = valueAt(q, new double[d]);
             for (int i : along) {
-                Problem slab = sourceSlab(problem, i, i == along.get(0) ? 0 : q0);
+                Problem slab = sourceSlab(problem, i, i == along.get(0) && pairs.isEmpty() ? 0 : q0);
                 sourceParts[i] = slab.source();
                 sourceSlices[i] = new SlabSolver(slab, 0, tolerance / (8 * along.size())).at(0);
             }
@@ -907,14 +941,151 @@ public final class TensorSolver implements SpatialSolver {
         return new double[] {worst, size};
     }
 
+    /**
+     * The largest triple mixed difference of a box's source, sum over the corners of [0, p] of
+     * (-1)^(3 - |S|) Q(p_S, 0) (zero exactly when Q is a sum of terms of two coordinates each), at the
+     * scan's points and its peak: {difference, size}.
+     */
+    private double[] tripleDifference(Expression q) {
+        double worst = 0;
+        double size = 0;
+        double[] p = new double[3];
+        double[] corner = new double[3];
+        for (int c = 0; c < 82; c++) {
+            for (int i = 0; i < 3; i++) {
+                p[i] = c == 81 ? (sourcePeak == null ? 0 : sourcePeak[i]) : len[i] * (((c * 7 + i * 5 + 1) % 9) / 8.0);
+            }
+            double sum = 0;
+            for (int mask = 0; mask < 8; mask++) {
+                for (int i = 0; i < 3; i++) {
+                    corner[i] = (mask >> i & 1) == 1 ? p[i] : 0;
+                }
+                double v = valueAt(q, corner);
+                size = Math.max(size, Math.abs(v));
+                sum += Integer.bitCount(mask) % 2 == 1 ? v : -v;
+            }
+            worst = Math.max(worst, Math.abs(sum));
+        }
+        return new double[] {worst, size};
+    }
+
+    /** Q with the listed axes at 0 and t at 0, over the variables (x_a, x_b). */
+    private static Expression fixed(Expression q, int a, int b, boolean keepA, boolean keepB) {
+        Expression e = q;
+        for (int i = 0; i < 3; i++) {
+            boolean keep = i == a && keepA || i == b && keepB;
+            if (!keep && e.variables().contains(NAMES[i])) {
+                e = e.substitute(NAMES[i], 0);
+            }
+        }
+        if (e.variables().contains("t")) {
+            e = e.substitute("t", 0); // constant in t, or its change handled by the source's terms
+        }
+        return e.over(NAMES[a], NAMES[b]);
+    }
+
+    /**
+     * Splits a box source whose triple mixed difference vanishes into terms of two coordinates. With the
+     * pairs of axes whose mixed difference does not vanish (the first a, b, with third axis c):
+     * Q = Q(x_a, x_b, 0) + sum over the other coupled pairs of T_ij + (Q(0, 0, x_c) - Q(0, 0, 0)), where
+     * T_ij = Q(x_i, x_j, 0) - Q(x_i, 0, 0) - Q(0, x_j, 0) + Q(0, 0, 0) (the other coordinate at 0) is the
+     * part that couples i and j; the last term is a slab's source along c. The first term holds the
+     * constant and the terms of a and b alone, so no face across a or b receives data from the source.
+     * Each term's V comes from a rectangle solver of its own at tolerance / (32 n) for n terms. Returns
+     * {the largest mixed difference of the pairs taken as not coupled (rounding), c}.
+     */
+    private double[] addPairTerms(Problem problem, Expression q, List<Integer> along) {
+        List<int[]> coupled = new ArrayList<>();
+        double left = 0;
+        for (int x = 0; x < along.size(); x++) {
+            for (int y = x + 1; y < along.size(); y++) {
+                int a = Math.min(along.get(x), along.get(y));
+                int b = Math.max(along.get(x), along.get(y));
+                double[] mixed = mixedDifference(q, List.of(a, b));
+                if (mixed[0] <= 1e-12 * Math.max(1, mixed[1])) {
+                    left = Math.max(left, mixed[0]);
+                } else {
+                    coupled.add(new int[] {a, b});
+                }
+            }
+        }
+        for (int[] pair : coupled) {
+            int a = pair[0];
+            int b = pair[1];
+            int c = 3 - a - b;
+            String which = NAMES[a] + " and " + NAMES[b];
+            if (axes[a].zero && axes[b].zero) {
+                throw new OracleException(Reason.UNSUPPORTED, "source: has a part that varies with " + which
+                    + " together, and the four faces across " + which + " are all insulated or flux-driven; this"
+                    + " version needs a temperature or convection on one of them");
+            }
+            Expression t = fixed(q, a, b, true, true);
+            if (pair != coupled.get(0)) {
+                Expression qa = fixed(q, a, b, true, false);
+                Expression qb = fixed(q, a, b, false, true);
+                double q00 = valueAt(q, new double[3]);
+                // grouped as (Q(x_a, x_b) - Q(x_a, 0)) - (Q(0, x_b) - Q(0, 0)): exactly 0 in floating point on
+                // the sides x_a = 0 and x_b = 0 (the rectangle would otherwise fit rounding noise there)
+                t = t.linear(1, qa, -1).linear(1, qb.linear(1, Expression.constant(1, NAMES[a], NAMES[b]), -q00), -1);
+            }
+            Expression rect = t;
+            if (a != 0) {
+                rect = rect.renamed(NAMES[a], "x");
+            }
+            if (b != 1) {
+                rect = rect.renamed(NAMES[b], "y");
+            }
+            double subTolerance = Math.max(1e-15, tolerance / (32 * coupled.size()));
+            TensorSolver v;
+            try {
+                v = new TensorSolver(pairProblem(rect, a, b, problem.material()), 0, subTolerance, true);
+            } catch (OracleException e) {
+                throw new OracleException(e.reason(), "source: its part that varies with " + which + " together"
+                    + " is solved on the " + NAMES[a] + "-" + NAMES[b] + " rectangle (read there as x and y), which"
+                    + " answered: " + e.getMessage());
+            }
+            pairs.add(new PairTerm(a, b, c, t, v.at(Double.POSITIVE_INFINITY), subTolerance * v.scale()));
+            if (type[c][0] != NEUMANN || type[c][1] != NEUMANN) {
+                pairDataError += subTolerance * v.scale();
+            }
+        }
+        int[] first = coupled.get(0);
+        return new double[] {left, 3 - first[0] - first[1]};
+    }
+
+    /** The steady rectangle of axes a, b (as x, y) under their homogeneous conditions, with source T_ab. */
+    private Problem pairProblem(Expression source, int a, int b, Material material) {
+        Map<Side, BoundaryCondition> bc = new EnumMap<>(Side.class);
+        Side[][] rectSides = {{Side.XMIN, Side.XMAX}, {Side.YMIN, Side.YMAX}};
+        int[] pair = {a, b};
+        for (int r = 0; r < 2; r++) {
+            int axis = pair[r];
+            for (int s = 0; s < 2; s++) {
+                Expression zero = Expression.parse("0", r == 0 ? "y" : "x", "t");
+                bc.put(rectSides[r][s], switch (type[axis][s]) {
+                    case DIRICHLET -> new BoundaryCondition.Dirichlet(zero);
+                    case NEUMANN -> new BoundaryCondition.Neumann(zero);
+                    default -> new BoundaryCondition.Robin(h[axis][s], zero);
+                });
+            }
+        }
+        return new Problem(new Rectangle(len[a], len[b]), material, Expression.parse("0", "x", "y"), source, bc,
+            true);
+    }
+
     private OracleException notAdditive(List<Integer> along) {
         StringBuilder names = new StringBuilder();
         for (int i : along) {
             names.append(names.length() == 0 ? "" : " and ").append(NAMES[i]);
         }
-        String where = d == 3 ? "this version solves boxes whose source is a sum of terms of one coordinate each"
-            + " (Q = a(x) + b(y) + c(z), a constant included); a rectangle takes any smooth source"
-            : "every side is insulated or flux-driven, where this version takes a uniform source only";
+        if (d == 3 && !allFlux) {
+            return new OracleException(Reason.UNSUPPORTED, "source: varies with x, y and z together (it is not a sum"
+                + " of terms of two coordinates each); this version solves boxes whose source is such a sum,"
+                + " Q = a(x, y) + b(y, z) + c(x, z) (a heater line along an axis, say), and a rectangle takes any"
+                + " smooth source; for a general source use a manufactured solution");
+        }
+        String where = d == 3 ? "every face is insulated or flux-driven, where this version takes a uniform source"
+            + " only" : "every side is insulated or flux-driven, where this version takes a uniform source only";
         return new OracleException(Reason.UNSUPPORTED, "source: varies along " + names + " and is not a sum of"
             + " terms of one coordinate each; " + where + "; for a general source use a manufactured solution");
     }
@@ -1424,6 +1595,30 @@ public final class TensorSolver implements SpatialSolver {
         }
         int n = shape[a];
         modes.ensure(m);
+        double[] out = new double[outer * m * inner];
+        int rest = inner;
+        long work = (long) outer * m * n * inner;
+        if (inner == 1 && outer < 16) {
+            // a few rows (a face's profile, thousands of modes): each mode's row of the basis made and used at
+            // once, the modes shared among the cores (the sines are most of the work; no m x n matrix is kept)
+            int profiles = outer;
+            rows(m, (long) m * n > 1_000_000L, j -> {
+                double norm = modes.norm[j];
+                double[] b = new double[n];
+                for (int q = 0; q < n; q++) {
+                    b[q] = w[q] * Math.sin(modes.mu[j] * x[q] + modes.phase[j]) / norm;
+                }
+                for (int o = 0; o < profiles; o++) {
+                    double sum = 0;
+                    for (int q = 0; q < n; q++) {
+                        sum += b[q] * tensor[o * n + q];
+                    }
+                    out[o * m + j] = sum;
+                }
+            });
+            shape[a] = m;
+            return out;
+        }
         double[][] basis = new double[m][n];
         for (int j = 0; j < m; j++) {
             double norm = modes.norm[j];
@@ -1431,22 +1626,70 @@ public final class TensorSolver implements SpatialSolver {
                 basis[j][q] = w[q] * Math.sin(modes.mu[j] * x[q] + modes.phase[j]) / norm;
             }
         }
-        double[] out = new double[outer * m * inner];
-        for (int o = 0; o < outer; o++) {
+        boolean parallel = work > 4_000_000L;
+        if (inner == 1) {
+            // the last axis: out[o][j] = sum_q tensor[o][q] basis[j][q], with the basis transposed so that the
+            // innermost loop runs along j (a multiply-add over contiguous rows, which the compiler vectorises)
+            double[] transposed = new double[n * m];
             for (int j = 0; j < m; j++) {
-                double[] b = basis[j];
-                int target = (o * m + j) * inner;
                 for (int q = 0; q < n; q++) {
-                    double bq = b[q];
-                    int source = (o * n + q) * inner;
-                    for (int r = 0; r < inner; r++) {
-                        out[target + r] += bq * tensor[source + r];
-                    }
+                    transposed[q * m + j] = basis[j][q];
                 }
             }
+            java.util.function.IntConsumer row = o -> {
+                int target = o * m;
+                for (int q = 0; q < n; q++) {
+                    double tq = tensor[o * n + q];
+                    int source = q * m;
+                    for (int j = 0; j < m; j++) {
+                        out[target + j] += tq * transposed[source + j];
+                    }
+                }
+            };
+            rows(outer, parallel, row);
+        } else {
+            // out[o][j][r] = sum_q basis[j][q] tensor[o][q][r], in tiles of JT modes by RT entries so that a
+            // tile of out stays in cache while the tensor streams past once per JT modes; each (o, tile of j)
+            // is written by one task alone, in a fixed order, so the sums do not depend on how the work is
+            // shared among the cores
+            int tiles = (m + JT - 1) / JT;
+            java.util.function.IntConsumer block = task -> {
+                int o = task / tiles;
+                int j0 = (task % tiles) * JT;
+                int j1 = Math.min(m, j0 + JT);
+                for (int r0 = 0; r0 < rest; r0 += RT) {
+                    int r1 = Math.min(rest, r0 + RT);
+                    for (int q = 0; q < n; q++) {
+                        int source = (o * n + q) * rest;
+                        for (int j = j0; j < j1; j++) {
+                            double bq = basis[j][q];
+                            int target = (o * m + j) * rest;
+                            for (int r = r0; r < r1; r++) {
+                                out[target + r] += bq * tensor[source + r];
+                            }
+                        }
+                    }
+                }
+            };
+            rows(outer * tiles, parallel, block);
         }
         shape[a] = m;
         return out;
+    }
+
+    /** Modes and entries per tile of a contraction along an axis that is not the last. */
+    private static final int JT = 16;
+    private static final int RT = 512;
+
+    /** Runs task(0..count-1), shared among the cores when the work is large enough to repay it. */
+    private static void rows(int count, boolean parallel, java.util.function.IntConsumer task) {
+        if (parallel && count > 1) {
+            java.util.stream.IntStream.range(0, count).parallel().forEach(task);
+        } else {
+            for (int i = 0; i < count; i++) {
+                task.accept(i);
+            }
+        }
     }
 
     /** Coefficients of a function of the given axes, sampled on tensor Gauss rules, over the modes. */
@@ -2271,6 +2514,19 @@ public final class TensorSolver implements SpatialSolver {
                 p += sourceSlices[i].temperature(point[i]).value();
             }
         }
+        for (PairTerm t : pairs) {
+            if (t.c() == axis) {
+                // V vanishes (in B) on the faces across its own axes; across the third it is data
+                Evaluation e = t.at(point[t.a()], point[t.b()]);
+                if (!(e.bound() <= t.error())) {
+                    throw new OracleException(Reason.TOO_MANY_MODES, "source: its part that varies with "
+                        + NAMES[t.a()] + " and " + NAMES[t.b()] + " together is not certified to " + t.error()
+                        + " K at (" + point[t.a()] + ", " + point[t.b()] + ") on boundary." + SIDES[axis][side].key()
+                        + " (bound " + e.bound() + " K); loosen the tolerance or smooth the source");
+                }
+                p += e.value();
+            }
+        }
         return type[axis][side] == ROBIN ? h[axis][side] * p : p;
     }
 
@@ -2322,6 +2578,40 @@ public final class TensorSolver implements SpatialSolver {
                 }
                 err += qa[1][0] * weightMax;
                 uNorm += qa[1][1];
+            }
+            for (PairTerm term : pairs) {
+                // V_ij = T_ij / (k (mu_i^2 + nu_j^2)) exactly, times the projections of 1 on the third axis;
+                // ||V|| <= ||T|| / (k lambda_min) on the rectangle, times sqrt(L_c)
+                int a = term.a();
+                int b = term.b();
+                int cc = term.c();
+                Expression ts = term.source();
+                double[] args = new double[2];
+                double[][] gt = project(point -> {
+                    args[0] = point[a];
+                    args[1] = point[b];
+                    return ts.value(args);
+                }, new int[] {a, b}, new int[] {m[a], m[b]}, new double[d]);
+                for (int i = 0; i < d; i++) {
+                    axes[i].ensure(m[i]);
+                }
+                double[] ones = new double[m[cc]];
+                for (int j = 0; j < m[cc]; j++) {
+                    ones[j] = axes[cc].integral(j) / axes[cc].norm[j];
+                }
+                double weightMax = 0;
+                int[] index = new int[d];
+                for (int cIndex = 0; cIndex < count; cIndex++) {
+                    unflatten(cIndex, m, index);
+                    double mu = axes[a].mu[index[a]];
+                    double nu = axes[b].mu[index[b]];
+                    double w = ones[index[cc]] / (k * (mu * mu + nu * nu));
+                    c[cIndex] -= gt[0][index[a] * m[b] + index[b]] * w;
+                    weightMax = Math.max(weightMax, Math.abs(w));
+                }
+                err += gt[1][0] * weightMax;
+                double lambdaMin = axes[a].mu[0] * axes[a].mu[0] + axes[b].mu[0] * axes[b].mu[0];
+                uNorm += 1.01 * gt[1][1] * Math.sqrt(len[cc]) / (k * lambdaMin);
             }
             for (Blend b : blends) {
                 // psi_j beta_n: psi's projection on the modes of its axis, beta_n = G_n / (k nu_n^2) exactly
@@ -2861,7 +3151,9 @@ public final class TensorSolver implements SpatialSolver {
 
     @Override
     public Steady steadyPart() {
-        if (faces.isEmpty() && lagFaces == 0 && lagSeries == null && moving.isEmpty() && sourceTerms.isEmpty()) {
+        // cheap without face series, lags, schedules, a source's blend, remainder or pair terms: not worth sharing
+        if (faces.isEmpty() && lagFaces == 0 && lagSeries == null && moving.isEmpty() && sourceTerms.isEmpty()
+            && blends.isEmpty() && remainder == null && pairs.isEmpty()) {
             return null;
         }
         return (p, o) -> {
@@ -3015,6 +3307,12 @@ public final class TensorSolver implements SpatialSolver {
                 bound += e.bound();
             }
         }
+        for (PairTerm t : pairs) {
+            Evaluation e = t.at(p[o + t.a()], p[o + t.b()]);
+            value += e.value();
+            bound += e.bound();
+        }
+        bound += pairDataError;
         double blendBudget = tolerance * scale / (16 * Math.max(1, blends.size()));
         for (Blend b : blends) {
             if (b.slice() != null) {
@@ -3454,6 +3752,22 @@ public final class TensorSolver implements SpatialSolver {
                 g[sourceAxis] += -flux.value() / k;
                 bound += flux.bound() / k;
             }
+            for (PairTerm term : pairs) {
+                double[] gv = new double[2];
+                bound += term.slice().gradient(new double[] {p[o + term.a()], p[o + term.b()]}, 0, gv, 0);
+                g[term.a()] += gv[0];
+                g[term.b()] += gv[1];
+            }
+            if (pairDataError > 0) {
+                // the face data's error H is harmonic with |H| <= E: |dH/dx_i| <= 3 E / r at distance r from the
+                // boundary (the interior gradient estimate, Gilbarg and Trudinger, Elliptic Partial Differential
+                // Equations of Second Order, eq. 2.31)
+                double r = Double.POSITIVE_INFINITY;
+                for (int i = 0; i < d; i++) {
+                    r = Math.min(r, Math.min(p[o + i], len[i] - p[o + i]));
+                }
+                bound += 3 * pairDataError / r;
+            }
             double blendBudget = budget / (16 * Math.max(1, blends.size()));
             for (Blend b : blends) {
                 if (b.slice() != null) {
@@ -3550,6 +3864,14 @@ public final class TensorSolver implements SpatialSolver {
                     bound += e.bound();
                 }
             }
+            for (PairTerm term : pairs) {
+                // V does not vary along the third axis: its mean over the cell is its mean over the cell's face
+                Evaluation e = term.slice().average(new double[] {lo[term.a()], lo[term.b()]},
+                    new double[] {hi[term.a()], hi[term.b()]});
+                value += e.value();
+                bound += e.bound();
+            }
+            bound += pairDataError;
             double blendBudget = budget / (16 * Math.max(1, blends.size()));
             for (Blend b : blends) {
                 if (b.slice() != null) {

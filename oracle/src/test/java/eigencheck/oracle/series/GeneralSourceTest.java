@@ -299,16 +299,16 @@ class GeneralSourceTest {
         OracleException e = assertThrows(OracleException.class, () -> Oracle.prepare(kinked, 0, 1e-8));
         assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
         assertTrue(e.getMessage().contains("may be non-smooth"), e.getMessage());
-        // a box: sources that are sums of one-coordinate terms only
+        // a box: sources that are sums of terms of two coordinates each only
         Map<Side, BoundaryCondition> box = new EnumMap<>(Side.class);
         BoundaryCondition zero3 = new BoundaryCondition.Dirichlet(Expression.parse("0", "x", "y", "z", "t"));
         for (Side s : new Side[] {Side.XMIN, Side.XMAX, Side.YMIN, Side.YMAX, Side.ZMIN, Side.ZMAX}) {
             box.put(s, zero3);
         }
         Problem cube = new Problem(new Box(1, 1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y", "z"),
-            Expression.parse("x*y", "x", "y", "z", "t"), box, true);
+            Expression.parse("x*y*z", "x", "y", "z", "t"), box, true);
         e = assertThrows(OracleException.class, () -> Oracle.prepare(cube, 0, 1e-8));
         assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
-        assertTrue(e.getMessage().contains("boxes whose source is a sum"), e.getMessage());
+        assertTrue(e.getMessage().contains("two coordinates each"), e.getMessage());
     }
 }

@@ -1,0 +1,185 @@
+package eigencheck.oracle.series;
+
+import static eigencheck.oracle.testing.NumericAssertions.assertWithin;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import eigencheck.oracle.Evaluation;
+import eigencheck.oracle.Oracle;
+import eigencheck.oracle.OracleException;
+import eigencheck.oracle.expr.Expression;
+import eigencheck.oracle.problem.BoundaryCondition;
+import eigencheck.oracle.problem.Box;
+import eigencheck.oracle.problem.Manufactured;
+import eigencheck.oracle.problem.Material;
+import eigencheck.oracle.problem.Problem;
+import eigencheck.oracle.problem.Rectangle;
+import eigencheck.oracle.problem.Side;
+import java.util.EnumMap;
+import java.util.Map;
+import org.apache.commons.math3.analysis.integration.gauss.GaussIntegrator;
+import org.apache.commons.math3.analysis.integration.gauss.GaussIntegratorFactory;
+import org.junit.jupiter.api.Test;
+
+/** Boxes whose source is a sum of terms of two coordinates each (a heater line along an axis, say). */
+class BoxPairSourceTest {
+    private static final String HEATER = "5000*exp(-((x-0.4)^2+(y-0.3)^2)/0.01)";
+
+    @Test
+    void heaterLineWithInsulatedEndsIsTheRectangle() {
+        // a heater line along z in a box whose z faces are insulated: the rectangle's solution, extended as constant
+        // in z, satisfies every equation and face of the box, so by uniqueness it is the box's (common practice)
+        Problem box = heaterBox(true);
+        Problem rect = heaterRectangle(true);
+        double tol = 1e-6;
+        Oracle b = Oracle.prepare(box, 0, tol);
+        Oracle r = Oracle.prepare(rect, 0, 1e-9);
+        double[][] points = {{0.4, 0.3}, {0.1, 0.7}, {0.8, 0.2}, {1.0, 0.3}, {0.4, 0.0}, {0.6, 0.5}};
+        for (double[] p : points) {
+            Evaluation reference = r.temperature(p, 0);
+            for (double z : new double[] {0.05, 0.3, 0.55}) {
+                Evaluation e = b.temperature(new double[] {p[0], p[1], z}, 0);
+                assertWithin(reference.value(), new Evaluation(e.value(), e.bound() + reference.bound()),
+                    tol * b.temperatureScale() + reference.bound(), "box at " + p[0] + ", " + p[1] + ", " + z);
+            }
+        }
+        // the gradient's z component vanishes; x and y are the rectangle's
+        Evaluation[] g = b.gradient(new double[] {0.6, 0.5, 0.3}, 0);
+        // (the rectangle's gradients at 1e-9 would need more than its 1024 modes per axis)
+        Evaluation[] gr = Oracle.prepare(rect, 0, tol).gradient(new double[] {0.6, 0.5}, 0);
+        for (int c = 0; c < 2; c++) {
+            assertWithin(gr[c].value(), new Evaluation(g[c].value(), g[c].bound() + gr[c].bound()),
+                tol * b.temperatureScale() + gr[c].bound(), "grad component " + c);
+        }
+        assertWithin(0, g[2], tol * b.temperatureScale(), "du/dz");
+    }
+
+    @Test
+    void heaterLineTransientWithInsulatedEndsIsTheRectangle() {
+        // the same uniqueness argument for the transient from a uniform start (common practice)
+        Problem box = heaterBox(false);
+        Problem rect = heaterRectangle(false);
+        double tol = 1e-6;
+        Oracle b = Oracle.prepare(box, 0.2, tol);
+        Oracle r = Oracle.prepare(rect, 0.2, 1e-9);
+        for (double t : new double[] {0.01, 0.2}) {
+            for (double[] p : new double[][] {{0.4, 0.3}, {0.7, 0.6}}) {
+                Evaluation reference = r.temperature(p, t);
+                Evaluation e = b.temperature(new double[] {p[0], p[1], 0.2}, t);
+                assertWithin(reference.value(), new Evaluation(e.value(), e.bound() + reference.bound()),
+                    tol * b.temperatureScale() + reference.bound(), "box at " + p[0] + ", " + p[1] + ", t = " + t);
+            }
+        }
+    }
+
+    @Test
+    void manufacturedTwoPairSource() {
+        // u = sin(2 x y) + cos(y + z)/2 + 0.3 x z: its source -k lap u couples x-y, y-z and x-z; faces derived
+        // exactly (method of manufactured solutions, common practice)
+        Expression exact = Expression.parse("sin(2*x*y) + 0.5*cos(y + z) + 0.3*x*z", "x", "y", "z", "t");
+        Map<Side, Manufactured.Face> kinds = new EnumMap<>(Side.class);
+        kinds.put(Side.XMIN, Manufactured.Face.dirichlet());
+        kinds.put(Side.XMAX, Manufactured.Face.dirichlet());
+        kinds.put(Side.YMIN, Manufactured.Face.neumann());
+        kinds.put(Side.YMAX, Manufactured.Face.robin(12));
+        kinds.put(Side.ZMIN, Manufactured.Face.dirichlet());
+        kinds.put(Side.ZMAX, Manufactured.Face.neumann());
+        double lx = 1.0;
+        double ly = 0.8;
+        double lz = 0.6;
+        Problem m = Manufactured.cartesian(exact, new Box(lx, ly, lz), new Material(3, 2), kinds);
+        Problem p = new Problem(m.domain(), m.material(), m.initial(), m.source(), m.boundary(), true);
+        double tol = 1e-6;
+        Oracle o = Oracle.prepare(p, 0, tol);
+        double limit = tol * o.temperatureScale();
+        String[] names = {"x", "y", "z"};
+        double[] f = {0.15, 0.5, 0.85};
+        for (double fx : f) {
+            for (double fy : f) {
+                for (double fz : f) {
+                    double x = fx * lx;
+                    double y = fy * ly;
+                    double z = fz * lz;
+                    assertWithin(exact.value(x, y, z, 0), o.temperature(new double[] {x, y, z}, 0), limit,
+                        "u at " + x + ", " + y + ", " + z);
+                }
+            }
+        }
+        double[] centre = {0.5 * lx, 0.5 * ly, 0.5 * lz};
+        Evaluation[] g = o.gradient(centre, 0);
+        for (int c = 0; c < 3; c++) {
+            double d = exact.derivative(names[c]).value(centre[0], centre[1], centre[2], 0);
+            assertWithin(d, g[c], limit, "du/d" + names[c] + " at the centre");
+        }
+        // a cell mean against a 5-point Gauss-Legendre rule in each direction (Abramowitz and Stegun 25.4.29;
+        // its error here is below 1e-12 for this analytic integrand)
+        double[] lo = {0.3, 0.2, 0.2};
+        double[] hi = {0.5, 0.4, 0.4};
+        GaussIntegrator[] rule = new GaussIntegrator[3];
+        for (int c = 0; c < 3; c++) {
+            rule[c] = new GaussIntegratorFactory().legendre(5, lo[c], hi[c]);
+        }
+        double mean = 0;
+        for (int i = 0; i < 5; i++) {
+            for (int j = 0; j < 5; j++) {
+                for (int l = 0; l < 5; l++) {
+                    mean += rule[0].getWeight(i) * rule[1].getWeight(j) * rule[2].getWeight(l)
+                        * exact.value(rule[0].getPoint(i), rule[1].getPoint(j), rule[2].getPoint(l), 0);
+                }
+            }
+        }
+        mean /= 0.2 * 0.2 * 0.2;
+        assertWithin(mean, o.cellAverage(lo, hi, 0), limit, "mean over the cell");
+    }
+
+    @Test
+    void refusesSourcesItCannotSplit() {
+        Map<Side, BoundaryCondition> held = new EnumMap<>(Side.class);
+        BoundaryCondition zero = new BoundaryCondition.Dirichlet(Expression.parse("0", "x", "y", "z", "t"));
+        for (Side s : new Side[] {Side.XMIN, Side.XMAX, Side.YMIN, Side.YMAX, Side.ZMIN, Side.ZMAX}) {
+            held.put(s, zero);
+        }
+        Problem coupled = new Problem(new Box(1, 1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y", "z"),
+            Expression.parse("exp(x*y*z)", "x", "y", "z", "t"), held, true);
+        OracleException e = assertThrows(OracleException.class, () -> Oracle.prepare(coupled, 0, 1e-6));
+        assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
+        assertTrue(e.getMessage().contains("two coordinates"), e.getMessage());
+        // an x-y term with all four faces across x and y insulated: its solution is fixed only up to a constant
+        Map<Side, BoundaryCondition> mixed = new EnumMap<>(held);
+        for (Side s : new Side[] {Side.XMIN, Side.XMAX, Side.YMIN, Side.YMAX}) {
+            mixed.put(s, new BoundaryCondition.Neumann(Expression.parse("0", s.ordinal() < 2 ? "y" : "x", "z", "t")));
+        }
+        mixed.put(Side.ZMIN, zero);
+        mixed.put(Side.ZMAX, new BoundaryCondition.Dirichlet(Expression.parse("0", "x", "y", "t")));
+        Problem flux = new Problem(new Box(1, 1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y", "z"),
+            Expression.parse("cos(pi*x)*cos(pi*y)", "x", "y", "z", "t"), mixed, true);
+        e = assertThrows(OracleException.class, () -> Oracle.prepare(flux, 0, 1e-6));
+        assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
+        assertTrue(e.getMessage().contains("all insulated or flux-driven"), e.getMessage());
+    }
+
+    /** A box 1 x 0.8 x 0.6 with a heater line along z at (0.4, 0.3), insulated in z, k = 2, rho c = 3. */
+    private static Problem heaterBox(boolean steady) {
+        Map<Side, BoundaryCondition> b = new EnumMap<>(Side.class);
+        b.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("0", "y", "z", "t")));
+        b.put(Side.XMAX, new BoundaryCondition.Robin(30, Expression.parse("0", "y", "z", "t")));
+        b.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "z", "t")));
+        b.put(Side.YMAX, new BoundaryCondition.Dirichlet(Expression.parse("0", "x", "z", "t")));
+        b.put(Side.ZMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "y", "t")));
+        b.put(Side.ZMAX, new BoundaryCondition.Neumann(Expression.parse("0", "x", "y", "t")));
+        return new Problem(new Box(1, 0.8, 0.6), new Material(2, 3), Expression.parse("0", "x", "y", "z"),
+            Expression.parse(HEATER, "x", "y", "z", "t"), b, steady);
+    }
+
+    /** The same cross-section as a rectangle. */
+    private static Problem heaterRectangle(boolean steady) {
+        Map<Side, BoundaryCondition> b = new EnumMap<>(Side.class);
+        b.put(Side.XMIN, new BoundaryCondition.Dirichlet(Expression.parse("0", "y", "t")));
+        b.put(Side.XMAX, new BoundaryCondition.Robin(30, Expression.parse("0", "y", "t")));
+        b.put(Side.YMIN, new BoundaryCondition.Neumann(Expression.parse("0", "x", "t")));
+        b.put(Side.YMAX, new BoundaryCondition.Dirichlet(Expression.parse("0", "x", "t")));
+        return new Problem(new Rectangle(1, 0.8), new Material(2, 3), Expression.parse("0", "x", "y"),
+            Expression.parse(HEATER, "x", "y", "t"), b, steady);
+    }
+}
