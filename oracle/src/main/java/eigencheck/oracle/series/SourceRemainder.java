@@ -380,7 +380,8 @@ final class SourceRemainder {
      * from forward automatic differentiation, once per point.
      */
     private double[][] mixedSeminorms() {
-        java.util.Map<Point, double[][]> memo = new java.util.HashMap<>();
+        // shared among the rows' tasks: a point's derivatives may be computed twice, never differently
+        java.util.Map<Point, double[][]> memo = new java.util.concurrent.ConcurrentHashMap<>();
         double[][] c = new double[kinds[0].length][kinds[1].length];
         for (int a = 0; a < kinds[0].length; a++) {
             for (int b = 0; b < kinds[1].length; b++) {
@@ -404,33 +405,41 @@ final class SourceRemainder {
         } else if (!kx.integral()) {
             double[][] r = GaussLegendre.onInterval(n1, len[1]);
             for (int a = 0; a < kx.at().length; a++) {
-                double sum = 0;
-                for (int q = 0; q < n1; q++) {
-                    sum += r[1][q] * Math.abs(combination(kx, a, ky, 0, kx.at()[a], r[0][q], memo));
-                }
-                total += 2 * sum;
+                int end = a;
+                total += 2 * sumOf(n1, q -> r[1][q] * Math.abs(combination(kx, end, ky, 0, kx.at()[end], r[0][q], memo)));
             }
         } else if (!ky.integral()) {
             double[][] r = GaussLegendre.onInterval(n1, len[0]);
             for (int b = 0; b < ky.at().length; b++) {
-                double sum = 0;
-                for (int q = 0; q < n1; q++) {
-                    sum += r[1][q] * Math.abs(combination(kx, 0, ky, b, r[0][q], ky.at()[b], memo));
-                }
-                total += 2 * sum;
+                int end = b;
+                total += 2 * sumOf(n1, q -> r[1][q] * Math.abs(combination(kx, 0, ky, end, r[0][q], ky.at()[end], memo)));
             }
         } else {
             double[][] rx = GaussLegendre.onInterval(n2, len[0]);
             double[][] ry = GaussLegendre.onInterval(n2, len[1]);
-            double sum = 0;
-            for (int i = 0; i < n2; i++) {
+            total = 2 * sumOf(n2, i -> {
+                double row = 0;
                 for (int j = 0; j < n2; j++) {
-                    sum += rx[1][i] * ry[1][j] * Math.abs(combination(kx, 0, ky, 0, rx[0][i], ry[0][j], memo));
+                    row += ry[1][j] * Math.abs(combination(kx, 0, ky, 0, rx[0][i], ry[0][j], memo));
                 }
-            }
-            total = 2 * sum;
+                return rx[1][i] * row;
+            });
         }
         return total;
+    }
+
+    /**
+     * sum_i term(i) for i = 0..count-1, the terms computed among the cores (each is an expression's
+     * derivatives of order 8 at some points, the bulk of a remainder's set-up) and added in index order.
+     */
+    private static double sumOf(int count, java.util.function.IntToDoubleFunction term) {
+        double[] terms = new double[count];
+        java.util.stream.IntStream.range(0, count).parallel().forEach(i -> terms[i] = term.applyAsDouble(i));
+        double sum = 0;
+        for (double t : terms) {
+            sum += t;
+        }
+        return sum;
     }
 
     private double combination(Kind kx, int a, Kind ky, int b, double x, double y, java.util.Map<Point, double[][]> memo) {
@@ -441,7 +450,7 @@ final class SourceRemainder {
             double[][] p = memo.get(key);
             if (p == null) {
                 p = partials(px, py);
-                memo.put(key, p);
+                memo.putIfAbsent(key, p);
             }
             return p[ox][oy];
         };
@@ -520,16 +529,26 @@ final class SourceRemainder {
         double norms = axes[0].normLowerBound(r) * axes[1].normLowerBound(r);
         double[][] wx = powers(axes[0], r);
         double[][] wy = powers(axes[1], r);
-        double value = 0;
-        double gradient = 0;
-        for (int a = 0; a < r; a++) {
+        // (4m)^2 bounds: the rows among the cores, added in row order
+        double[][] rowsOf = new double[r][2];
+        java.util.stream.IntStream.range(0, r).parallel().forEach(a -> {
             double mu = axes[0].mu[a];
+            double v = 0;
+            double g = 0;
             for (int b = a < m ? m : 0; b < r; b++) {
                 double nu = axes[1].mu[b];
                 double c = coefficientBound(mu == 0, nu == 0, wx, a, wy, b) / (k * (mu * mu + nu * nu));
-                value += c;
-                gradient += c * (mu + nu);
+                v += c;
+                g += c * (mu + nu);
             }
+            rowsOf[a][0] = v;
+            rowsOf[a][1] = g;
+        });
+        double value = 0;
+        double gradient = 0;
+        for (double[] row : rowsOf) {
+            value += row[0];
+            gradient += row[1];
         }
         double[] far = farTails(axes, r);
         return new double[] {(value + far[0]) / norms, (gradient + far[1]) / norms};

@@ -1165,9 +1165,12 @@ public final class TensorSolver implements SpatialSolver {
      * tolerance * scale / 16 (over the length scale for gradients).
      */
     private RemainderSeries remainderSeries(int m, double[] tails, boolean forGradients) {
-        SourceRemainder.Sampler sampler = remainder.sampler();
-        double[][] pr = project(point -> sampler.value(point[0], point[1]), new int[] {0, 1}, new int[] {m, m},
-            new double[2]);
+        // millions of samples of Q_r (the source and its values on the sides at each): among the cores, a
+        // remainder sampler per row of x
+        double[][] pr = project(() -> {
+            SourceRemainder.Sampler sampler = remainder.sampler();
+            return point -> sampler.value(point[0], point[1]);
+        }, true, new int[] {0, 1}, new int[] {m, m}, new double[2], 0);
         double error = pr[1][0];
         double[] w = new double[m * m];
         double[] ringAbs = new double[m];
@@ -1585,6 +1588,15 @@ public final class TensorSolver implements SpatialSolver {
      */
     private static double[] contract(double[] tensor, int[] shape, int a, double[] x, double[] w, AxisModes modes,
                                      int m) {
+        return contract(tensor, shape, a, x, w, modes, m, 0);
+    }
+
+    /**
+     * As {@link #contract(double[], int[], int, double[], double[], AxisModes, int)} for modes first..m-1 only
+     * (shape[a] becomes m - first); first > 0 only for a few profiles along the last axis.
+     */
+    private static double[] contract(double[] tensor, int[] shape, int a, double[] x, double[] w, AxisModes modes,
+                                     int m, int first) {
         int outer = 1;
         for (int i = 0; i < a; i++) {
             outer *= shape[i];
@@ -1595,14 +1607,16 @@ public final class TensorSolver implements SpatialSolver {
         }
         int n = shape[a];
         modes.ensure(m);
-        double[] out = new double[outer * m * inner];
         int rest = inner;
         long work = (long) outer * m * n * inner;
         if (inner == 1 && outer < 16) {
             // a few rows (a face's profile, thousands of modes): each mode's row of the basis made and used at
             // once, the modes shared among the cores (the sines are most of the work; no m x n matrix is kept)
             int profiles = outer;
-            rows(m, (long) m * n > 1_000_000L, j -> {
+            int count = m - first;
+            double[] part = new double[outer * count];
+            rows(count, (long) count * n > 1_000_000L, jj -> {
+                int j = first + jj;
                 double norm = modes.norm[j];
                 double[] b = new double[n];
                 for (int q = 0; q < n; q++) {
@@ -1613,12 +1627,16 @@ public final class TensorSolver implements SpatialSolver {
                     for (int q = 0; q < n; q++) {
                         sum += b[q] * tensor[o * n + q];
                     }
-                    out[o * m + j] = sum;
+                    part[o * count + jj] = sum;
                 }
             });
-            shape[a] = m;
-            return out;
+            shape[a] = count;
+            return part;
         }
+        if (first != 0) {
+            throw new IllegalArgumentException("a contraction from mode " + first + " needs a few profiles on the last axis");
+        }
+        double[] out = new double[outer * m * inner];
         double[][] basis = new double[m][n];
         for (int j = 0; j < m; j++) {
             double norm = modes.norm[j];
@@ -1702,6 +1720,25 @@ public final class TensorSolver implements SpatialSolver {
      * with a second, 25 % finer rule for the error: returns {coefficients, {error, L2 norm}}.
      */
     private double[][] project(Sampler f, int[] axisList, int[] m, double[] base) {
+        return project(f, axisList, m, base, 0);
+    }
+
+    /**
+     * As {@link #project(Sampler, int[], int[], double[])} for modes first..m[0]-1 of a single axis only
+     * (first > 0 needs one axis), on the rules of m[0] modes: the error is that of these modes alone.
+     */
+    private double[][] project(Sampler f, int[] axisList, int[] m, double[] base, int first) {
+        return project(() -> f, false, axisList, m, base, first);
+    }
+
+    /**
+     * As {@link #project(Sampler, int[], int[], double[], int)}; when {@code parallel}, the samples are taken
+     * among the cores, row by row of the first axis, each row from a sampler of its own (samplers that keep
+     * what depends on the slower coordinates, which are fixed along a row), and the norm's sums added in row
+     * order, so that the result does not depend on the thread count.
+     */
+    private double[][] project(java.util.function.Supplier<Sampler> samplers, boolean parallel, int[] axisList, int[] m,
+                               double[] base, int first) {
         double[][] result = null;
         for (int pass = 0; pass < 2; pass++) {
             int dims = axisList.length;
@@ -1718,24 +1755,36 @@ public final class TensorSolver implements SpatialSolver {
                 total *= n;
             }
             double[] values = new double[total];
-            double normSquared = 0;
-            double[] point = base.clone();
-            for (int c = 0; c < total; c++) {
-                int rest = c;
-                double weight = 1;
-                for (int i = dims - 1; i >= 0; i--) {
-                    int q = rest % shape[i];
-                    rest /= shape[i];
-                    point[axisList[i]] = rules[i][0][q];
-                    weight *= rules[i][1][q];
+            int rowCount = shape[0];
+            int rowLength = total / rowCount;
+            double[] rowNorms = new double[rowCount];
+            java.util.function.IntConsumer row = r -> {
+                Sampler f = samplers.get();
+                double[] point = base.clone();
+                double sum = 0;
+                for (int c = r * rowLength; c < (r + 1) * rowLength; c++) {
+                    int rest = c;
+                    double weight = 1;
+                    for (int i = dims - 1; i >= 0; i--) {
+                        int q = rest % shape[i];
+                        rest /= shape[i];
+                        point[axisList[i]] = rules[i][0][q];
+                        weight *= rules[i][1][q];
+                    }
+                    double v = f.at(point);
+                    values[c] = v;
+                    sum += weight * v * v;
                 }
-                double v = f.at(point);
-                values[c] = v;
-                normSquared += weight * v * v;
+                rowNorms[r] = sum;
+            };
+            rows(rowCount, parallel, row);
+            double normSquared = 0;
+            for (double v : rowNorms) {
+                normSquared += v;
             }
             double[] t = values;
             for (int i = 0; i < dims; i++) {
-                t = contract(t, shape, i, rules[i][0], rules[i][1], axes[axisList[i]], m[i]);
+                t = contract(t, shape, i, rules[i][0], rules[i][1], axes[axisList[i]], m[i], i == 0 ? first : 0);
             }
             if (pass == 0) {
                 result = new double[][] {t, {0, Math.sqrt(normSquared)}};
@@ -1916,6 +1965,38 @@ public final class TensorSolver implements SpatialSolver {
             }
         }
 
+        // a side's projection (one tangential axis) in pieces: piece i holds modes ends[i-1]..ends[i]-1, projected
+        // on the rules of ends[i] modes, with that piece's own error and the data's norm on those rules; a
+        // larger table projects only the modes it adds (doubling a table of thousands of modes projected all
+        // of them again, which was most of a convecting plate's preparation)
+        private final java.util.List<double[]> pieces = new java.util.ArrayList<>();
+        private final java.util.List<double[]> piecesInfo = new java.util.ArrayList<>(); // {end, error, norm}
+
+        /** The data's coefficients for modes 0..size-1 of the tangential axes, as {coefficients, {error, norm}}. */
+        private synchronized double[][] projection(int[] size, double[] base) {
+            if (tangential.length != 1) {
+                return project(Face.this::boundaryData, tangential, size, base);
+            }
+            int covered = piecesInfo.isEmpty() ? 0 : (int) piecesInfo.get(piecesInfo.size() - 1)[0];
+            if (covered < size[0]) {
+                double[][] p = project(Face.this::boundaryData, tangential, size, base, covered);
+                pieces.add(p[0]);
+                piecesInfo.add(new double[] {size[0], p[1][0], p[1][1]});
+            }
+            double[] coef = new double[size[0]];
+            double error = 0;
+            double norm = 0;
+            int start = 0;
+            for (int i = 0; i < pieces.size() && start < size[0]; i++) {
+                double[] piece = pieces.get(i);
+                System.arraycopy(piece, 0, coef, start, Math.min(piece.length, size[0] - start));
+                error = Math.max(error, piecesInfo.get(i)[1]);
+                norm = piecesInfo.get(i)[2];
+                start += piece.length;
+            }
+            return new double[][] {coef, {error, norm}};
+        }
+
         /** The face's coefficients and profiles for modes 0..size[i]-1 of each tangential axis. */
         final class Table {
             final int[] size;
@@ -1949,7 +2030,7 @@ public final class TensorSolver implements SpatialSolver {
                 this.size = size.clone();
                 double[] base = new double[d];
                 base[axis] = side == 0 ? 0 : len[axis];
-                double[][] p = project(Face.this::boundaryData, tangential, this.size, base);
+                double[][] p = projection(this.size, base);
                 norm = p[1][1];
                 coef = p[0];
                 error = p[1][0];

@@ -37,11 +37,8 @@ class BoxPairSourceTest {
         Oracle r = Oracle.prepare(rect, 0, 1e-9);
         double[][] points = {{0.4, 0.3}, {0.1, 0.7}, {0.8, 0.2}, {1.0, 0.3}, {0.4, 0.0}, {0.6, 0.5}};
         for (double[] p : points) {
-            Evaluation reference = r.temperature(p, 0);
             for (double z : new double[] {0.05, 0.3, 0.55}) {
-                Evaluation e = b.temperature(new double[] {p[0], p[1], z}, 0);
-                assertWithin(reference.value(), new Evaluation(e.value(), e.bound() + reference.bound()),
-                    tol * b.temperatureScale() + reference.bound(), "box at " + p[0] + ", " + p[1] + ", " + z);
+                assertBoxIsRectangle(b, r, p, z, 0, tol);
             }
         }
         // the gradient's z component vanishes; x and y are the rectangle's
@@ -65,12 +62,20 @@ class BoxPairSourceTest {
         Oracle r = Oracle.prepare(rect, 0.2, 1e-9);
         for (double t : new double[] {0.01, 0.2}) {
             for (double[] p : new double[][] {{0.4, 0.3}, {0.7, 0.6}}) {
-                Evaluation reference = r.temperature(p, t);
-                Evaluation e = b.temperature(new double[] {p[0], p[1], 0.2}, t);
-                assertWithin(reference.value(), new Evaluation(e.value(), e.bound() + reference.bound()),
-                    tol * b.temperatureScale() + reference.bound(), "box at " + p[0] + ", " + p[1] + ", t = " + t);
+                assertBoxIsRectangle(b, r, p, 0.2, t, tol);
             }
         }
+    }
+
+    /**
+     * The box's temperature at (p, z) against the rectangle's at p: the two values differ by at most the sum
+     * of their bounds, and that sum stays within the box's tolerance plus the rectangle's bound.
+     */
+    private static void assertBoxIsRectangle(Oracle box, Oracle rect, double[] p, double z, double t, double tol) {
+        Evaluation reference = rect.temperature(p, t);
+        Evaluation e = box.temperature(new double[] {p[0], p[1], z}, t);
+        assertWithin(reference.value(), new Evaluation(e.value(), e.bound() + reference.bound()),
+            tol * box.temperatureScale() + reference.bound(), "box at " + p[0] + ", " + p[1] + ", " + z + ", t = " + t);
     }
 
     @Test

@@ -55,6 +55,13 @@ class SlabManufacturedTest {
         double scale = oracle.temperatureScale();
         Expression ux = u.derivative("x");
         for (double t : new double[] {0.003, 0.01, 0.1, 0.5, 1, 3}) {
+            // the flux at a point is a sum of modal terms as large as the largest flux in the slab (a steep
+            // layer's at its face): tightness is asked only above 32 ulps of that
+            double fluxPeak = 0;
+            for (int i = 0; i <= 10; i++) {
+                fluxPeak = Math.max(fluxPeak, Math.abs(material.conductivity() * ux.value(length * i / 10.0, t)));
+            }
+            double fluxFloor = 32 * Math.ulp(fluxPeak);
             for (int i = 0; i <= 10; i++) {
                 double x = length * i / 10.0;
                 String where = name + " at x = " + x + ", t = " + t;
@@ -64,7 +71,7 @@ class SlabManufacturedTest {
                     throw new AssertionError(where + ": bound above the tolerance");
                 }
                 Evaluation q = oracle.heatFlux(x, t);
-                assertCertified(-material.conductivity() * ux.value(x, t), q, where + " (flux)");
+                assertCertified(-material.conductivity() * ux.value(x, t), q, fluxFloor, where + " (flux)");
             }
             double x0 = 0.13 * length;
             double x1 = 0.41 * length;
