@@ -1615,19 +1615,23 @@ public final class TensorSolver implements SpatialSolver {
             int profiles = outer;
             int count = m - first;
             double[] part = new double[outer * count];
-            rows(count, (long) count * n > 1_000_000L, jj -> {
-                int j = first + jj;
-                double norm = modes.norm[j];
+            // blocks of JT modes per task, one row buffer per block
+            int blocks = (count + JT - 1) / JT;
+            rows(blocks, (long) count * n > 1_000_000L, block -> {
                 double[] b = new double[n];
-                for (int q = 0; q < n; q++) {
-                    b[q] = w[q] * Math.sin(modes.mu[j] * x[q] + modes.phase[j]) / norm;
-                }
-                for (int o = 0; o < profiles; o++) {
-                    double sum = 0;
+                for (int jj = block * JT; jj < Math.min(count, (block + 1) * JT); jj++) {
+                    int j = first + jj;
+                    double norm = modes.norm[j];
                     for (int q = 0; q < n; q++) {
-                        sum += b[q] * tensor[o * n + q];
+                        b[q] = w[q] * Math.sin(modes.mu[j] * x[q] + modes.phase[j]) / norm;
                     }
-                    part[o * count + jj] = sum;
+                    for (int o = 0; o < profiles; o++) {
+                        double sum = 0;
+                        for (int q = 0; q < n; q++) {
+                            sum += b[q] * tensor[o * n + q];
+                        }
+                        part[o * count + jj] = sum;
+                    }
                 }
             });
             shape[a] = count;
@@ -1713,11 +1717,20 @@ public final class TensorSolver implements SpatialSolver {
     /** Coefficients of a function of the given axes, sampled on tensor Gauss rules, over the modes. */
     private interface Sampler {
         double at(double[] point);
+
+        /**
+         * The part of the last sample's error that the maximum-principle share does not cover (0 for samples
+         * that are exact to rounding); {@link #project} integrates it on its rules into an L1 excess.
+         */
+        default double excess() {
+            return 0;
+        }
     }
 
     /**
      * Projects f onto modes 0..m[i]-1 of the listed axes (other coordinates fixed by {@code base}),
-     * with a second, 25 % finer rule for the error: returns {coefficients, {error, L2 norm}}.
+     * with a second, 25 % finer rule for the error: returns {coefficients, {error, L2 norm, L1 excess}}, the
+     * excess the larger of the two rules' integrals of {@link Sampler#excess()}.
      */
     private double[][] project(Sampler f, int[] axisList, int[] m, double[] base) {
         return project(f, axisList, m, base, 0);
@@ -1758,10 +1771,12 @@ public final class TensorSolver implements SpatialSolver {
             int rowCount = shape[0];
             int rowLength = total / rowCount;
             double[] rowNorms = new double[rowCount];
+            double[] rowExcess = new double[rowCount];
             java.util.function.IntConsumer row = r -> {
                 Sampler f = samplers.get();
                 double[] point = base.clone();
                 double sum = 0;
+                double excess = 0;
                 for (int c = r * rowLength; c < (r + 1) * rowLength; c++) {
                     int rest = c;
                     double weight = 1;
@@ -1774,20 +1789,24 @@ public final class TensorSolver implements SpatialSolver {
                     double v = f.at(point);
                     values[c] = v;
                     sum += weight * v * v;
+                    excess += weight * f.excess();
                 }
                 rowNorms[r] = sum;
+                rowExcess[r] = excess;
             };
             rows(rowCount, parallel, row);
             double normSquared = 0;
-            for (double v : rowNorms) {
-                normSquared += v;
+            double excess = 0;
+            for (int r = 0; r < rowCount; r++) {
+                normSquared += rowNorms[r];
+                excess += rowExcess[r];
             }
             double[] t = values;
             for (int i = 0; i < dims; i++) {
                 t = contract(t, shape, i, rules[i][0], rules[i][1], axes[axisList[i]], m[i], i == 0 ? first : 0);
             }
             if (pass == 0) {
-                result = new double[][] {t, {0, Math.sqrt(normSquared)}};
+                result = new double[][] {t, {0, Math.sqrt(normSquared), excess}};
             } else {
                 double diff = 0;
                 double max = 0;
@@ -1796,6 +1815,7 @@ public final class TensorSolver implements SpatialSolver {
                     max = Math.max(max, Math.abs(t[c]));
                 }
                 result[1][0] = 10 * diff + 4 * EPS * max;
+                result[1][2] = Math.max(result[1][2], excess);
             }
         }
         return result;
@@ -1842,10 +1862,34 @@ public final class TensorSolver implements SpatialSolver {
         /** The data this face's series solves at a point on it: the shifted data less the source part, or the shape. */
         double boundaryData(double[] point) {
             if (shape == null) {
-                return shiftedData(axis, side, point) - sourcePart(axis, side, point);
+                return shiftedData(axis, side, point) - sourcePart(axis, side, point, null);
             }
             double g = valueAt(shape, point);
             return type[axis][side] == ROBIN ? h[axis][side] * g : g;
+        }
+
+        /**
+         * The face's data as samples for a projection, with the excess of a pair term's error over its share at
+         * each (one sampler per thread).
+         */
+        Sampler dataSampler() {
+            if (shape != null || pairs.isEmpty()) {
+                return this::boundaryData;
+            }
+            return new Sampler() {
+                private final double[] excess = new double[1];
+
+                @Override
+                public double at(double[] point) {
+                    excess[0] = 0;
+                    return shiftedData(axis, side, point) - sourcePart(axis, side, point, excess);
+                }
+
+                @Override
+                public double excess() {
+                    return excess[0];
+                }
+            };
         }
 
         /**
@@ -1970,31 +2014,33 @@ public final class TensorSolver implements SpatialSolver {
         // larger table projects only the modes it adds (doubling a table of thousands of modes projected all
         // of them again, which was most of a convecting plate's preparation)
         private final java.util.List<double[]> pieces = new java.util.ArrayList<>();
-        private final java.util.List<double[]> piecesInfo = new java.util.ArrayList<>(); // {end, error, norm}
+        private final java.util.List<double[]> piecesInfo = new java.util.ArrayList<>(); // {end, error, norm, excess}
 
-        /** The data's coefficients for modes 0..size-1 of the tangential axes, as {coefficients, {error, norm}}. */
+        /** The data's coefficients for modes 0..size-1 of the tangential axes, as {coefficients, {error, norm, excess}}. */
         private synchronized double[][] projection(int[] size, double[] base) {
             if (tangential.length != 1) {
-                return project(Face.this::boundaryData, tangential, size, base);
+                return project(Face.this::dataSampler, false, tangential, size, base, 0);
             }
             int covered = piecesInfo.isEmpty() ? 0 : (int) piecesInfo.get(piecesInfo.size() - 1)[0];
             if (covered < size[0]) {
-                double[][] p = project(Face.this::boundaryData, tangential, size, base, covered);
+                double[][] p = project(Face.this::dataSampler, false, tangential, size, base, covered);
                 pieces.add(p[0]);
-                piecesInfo.add(new double[] {size[0], p[1][0], p[1][1]});
+                piecesInfo.add(new double[] {size[0], p[1][0], p[1][1], p[1][2]});
             }
             double[] coef = new double[size[0]];
             double error = 0;
             double norm = 0;
+            double excess = 0;
             int start = 0;
             for (int i = 0; i < pieces.size() && start < size[0]; i++) {
                 double[] piece = pieces.get(i);
                 System.arraycopy(piece, 0, coef, start, Math.min(piece.length, size[0] - start));
                 error = Math.max(error, piecesInfo.get(i)[1]);
                 norm = piecesInfo.get(i)[2];
+                excess = Math.max(excess, piecesInfo.get(i)[3]);
                 start += piece.length;
             }
-            return new double[][] {coef, {error, norm}};
+            return new double[][] {coef, {error, norm, excess}};
         }
 
         /** The face's coefficients and profiles for modes 0..size[i]-1 of each tangential axis. */
@@ -2025,6 +2071,7 @@ public final class TensorSolver implements SpatialSolver {
             final double sup; // bound of 2 |a_m| |G_m| over all m
             final double profileNorm; // bound of ||a_m y_m|| over all m
             final double normLower; // lower bound of the tangential modes' norms (product over the axes)
+            final double coefficientShift; // bound of every |G_m| change by the pair terms' excess (in error and sup)
 
             Table(int[] size) {
                 this.size = size.clone();
@@ -2033,7 +2080,15 @@ public final class TensorSolver implements SpatialSolver {
                 double[][] p = projection(this.size, base);
                 norm = p[1][1];
                 coef = p[0];
-                error = p[1][0];
+                double lower = 1;
+                for (int i = 0; i < tangential.length; i++) {
+                    lower *= axes[tangential[i]].normLowerBound(this.size[i]);
+                }
+                // where a pair term's V is less certain than its share (next to its rectangle's corners), the
+                // excess delta_b moves every coefficient by |<delta_b, X_m>|/||X_m||^2 <= ||delta_b||_1 / normLower
+                // (|X_m| <= 1), the L1 norm measured on the projection's rules and doubled
+                coefficientShift = 2 * p[1][2] / lower;
+                error = p[1][0] + coefficientShift;
                 int count = coef.length;
                 kappa = new double[count];
                 amplitude = new double[count];
@@ -2161,7 +2216,7 @@ public final class TensorSolver implements SpatialSolver {
                         : Math.abs(a) * Math.sqrt(Math.min(2 / kap, 4 * depth));
                     yMax = Math.max(yMax, profile);
                 }
-                sup = 2 * aMax * norm / Math.sqrt(normLower);
+                sup = 2 * aMax * (norm / Math.sqrt(normLower) + coefficientShift);
                 profileNorm = yMax;
                 this.normLower = normLower;
             }
@@ -2584,8 +2639,12 @@ public final class TensorSolver implements SpatialSolver {
         return m;
     }
 
-    /** B_f of the source's slab parts along the other axes on a face: P_i, 0, h P_i on a Dirichlet, flux, convective face. */
-    private double sourcePart(int axis, int side, double[] point) {
+    /**
+     * B_f of the source's slab parts along the other axes on a face: P_i, 0, h P_i on a Dirichlet, flux,
+     * convective face. A pair term's V must be certified to its share at the point; with {@code excess} not
+     * null, a larger (finite) bound is allowed and what it exceeds the share by, in B_f, is added to excess[0].
+     */
+    private double sourcePart(int axis, int side, double[] point, double[] excess) {
         if (type[axis][side] == NEUMANN) {
             return 0;
         }
@@ -2599,7 +2658,9 @@ public final class TensorSolver implements SpatialSolver {
             if (t.c() == axis) {
                 // V vanishes (in B) on the faces across its own axes; across the third it is data
                 Evaluation e = t.at(point[t.a()], point[t.b()]);
-                if (!(e.bound() <= t.error())) {
+                if (excess != null && e.bound() > t.error() && Double.isFinite(e.bound())) {
+                    excess[0] += (type[axis][side] == ROBIN ? h[axis][side] : 1) * (e.bound() - t.error());
+                } else if (!(e.bound() <= t.error())) {
                     throw new OracleException(Reason.TOO_MANY_MODES, "source: its part that varies with "
                         + NAMES[t.a()] + " and " + NAMES[t.b()] + " together is not certified to " + t.error()
                         + " K at (" + point[t.a()] + ", " + point[t.b()] + ") on boundary." + SIDES[axis][side].key()

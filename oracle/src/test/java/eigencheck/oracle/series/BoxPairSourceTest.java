@@ -139,6 +139,60 @@ class BoxPairSourceTest {
     }
 
     @Test
+    void productSourceInAHeldCubeAgainstADoubleSeries() {
+        // Q = x y in the unit cube held at 0 (k = 1): the term does not vanish at the x-y rectangle's corner (1, 1),
+        // where V's bound exceeds its share on the z faces' rule nodes; that excess now enters the z faces'
+        // coefficients as an L1 norm instead of refusing the body. Reference: separation of variables in x and y
+        // with the exact z profile (common practice), x y = sum 4 (-1)^(j+k)/(j k pi^2) sin(j pi x) sin(k pi y),
+        // u = sum c_jk sin sin (1 - cosh(kappa (z - 1/2))/cosh(kappa/2))/kappa^2, kappa = pi sqrt(j^2 + k^2),
+        // summed to N = 4000 per axis; what it leaves out is below 8/pi^4 ((1.5 + ln N)/(2 N^2) + 1/(4 N^2))
+        // (|profile| <= 1, sum_k 1/(k (j^2 + k^2)) <= (1.5 + ln j)/j^2), 2.5e-8 here
+        Map<Side, BoundaryCondition> held = new EnumMap<>(Side.class);
+        BoundaryCondition zero = new BoundaryCondition.Dirichlet(Expression.parse("0", "x", "y", "z", "t"));
+        for (Side s : new Side[] {Side.XMIN, Side.XMAX, Side.YMIN, Side.YMAX, Side.ZMIN, Side.ZMAX}) {
+            held.put(s, zero);
+        }
+        Problem cube = new Problem(new Box(1, 1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y", "z"),
+            Expression.parse("x*y", "x", "y", "z", "t"), held, true);
+        double tol = 1e-6;
+        Oracle o = Oracle.prepare(cube, 0, tol);
+        int n = 4000;
+        double left = 8 / Math.pow(Math.PI, 4) * ((1.5 + Math.log(n)) / (2.0 * n * n) + 1 / (4.0 * n * n));
+        double[][] points = {{0.5, 0.5, 0.5}, {0.9, 0.9, 0.5}, {0.99, 0.99, 0.5}, {0.999, 0.999, 0.5}, {0.3, 0.6, 0.1},
+            {0.7, 0.2, 0.85}, {0.95, 0.05, 0.3}, {0.01, 0.5, 0.5}};
+        for (double[] p : points) {
+            double reference = heldCubeProductSeries(p[0], p[1], p[2], n);
+            Evaluation e = o.temperature(p, 0);
+            assertWithin(reference, new Evaluation(e.value(), e.bound() + left), tol * o.temperatureScale() + left,
+                "x y in the held cube at " + java.util.Arrays.toString(p));
+        }
+    }
+
+    /** The double series of the held unit cube with source x y and k = 1, modes 1..n per axis. */
+    private static double heldCubeProductSeries(double x, double y, double z, int n) {
+        double sum = 0;
+        double[] sx = new double[n + 1];
+        double[] sy = new double[n + 1];
+        for (int j = 1; j <= n; j++) {
+            sx[j] = Math.sin(j * Math.PI * x) / j;
+            sy[j] = Math.sin(j * Math.PI * y) / j;
+        }
+        double w = Math.abs(z - 0.5);
+        for (int j = 1; j <= n; j++) {
+            double row = 0;
+            for (int k = 1; k <= n; k++) {
+                double kap = Math.PI * Math.sqrt((double) j * j + (double) k * k);
+                // 1 - cosh(kap (z - 1/2))/cosh(kap/2), written with decaying exponentials
+                double profile = 1 - Math.exp(kap * (w - 0.5)) * (1 + Math.exp(-2 * kap * w)) / (1 + Math.exp(-kap));
+                double sign = ((j + k) % 2 == 0) ? 1 : -1;
+                row += sign * sy[k] * profile / (kap * kap);
+            }
+            sum += sx[j] * row;
+        }
+        return 4 / (Math.PI * Math.PI) * sum;
+    }
+
+    @Test
     void refusesSourcesItCannotSplit() {
         Map<Side, BoundaryCondition> held = new EnumMap<>(Side.class);
         BoundaryCondition zero = new BoundaryCondition.Dirichlet(Expression.parse("0", "x", "y", "z", "t"));
