@@ -147,13 +147,7 @@ class BoxPairSourceTest {
         // u = sum c_jk sin sin (1 - cosh(kappa (z - 1/2))/cosh(kappa/2))/kappa^2, kappa = pi sqrt(j^2 + k^2),
         // summed to N = 4000 per axis; what it leaves out is below 8/pi^4 ((1.5 + ln N)/(2 N^2) + 1/(4 N^2))
         // (|profile| <= 1, sum_k 1/(k (j^2 + k^2)) <= (1.5 + ln j)/j^2), 2.5e-8 here
-        Map<Side, BoundaryCondition> held = new EnumMap<>(Side.class);
-        BoundaryCondition zero = new BoundaryCondition.Dirichlet(Expression.parse("0", "x", "y", "z", "t"));
-        for (Side s : new Side[] {Side.XMIN, Side.XMAX, Side.YMIN, Side.YMAX, Side.ZMIN, Side.ZMAX}) {
-            held.put(s, zero);
-        }
-        Problem cube = new Problem(new Box(1, 1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y", "z"),
-            Expression.parse("x*y", "x", "y", "z", "t"), held, true);
+        Problem cube = heldUnitCube("x*y");
         double tol = 1e-6;
         Oracle o = Oracle.prepare(cube, 0, tol);
         int n = 4000;
@@ -166,6 +160,17 @@ class BoxPairSourceTest {
             assertWithin(reference, new Evaluation(e.value(), e.bound() + left), tol * o.temperatureScale() + left,
                 "x y in the held cube at " + java.util.Arrays.toString(p));
         }
+    }
+
+    /** The unit cube held at 0 on every face, k = rho c = 1, steady, with the given source of x, y, z. */
+    static Problem heldUnitCube(String source) {
+        Map<Side, BoundaryCondition> held = new EnumMap<>(Side.class);
+        BoundaryCondition zero = new BoundaryCondition.Dirichlet(Expression.parse("0", "x", "y", "z", "t"));
+        for (Side s : new Side[] {Side.XMIN, Side.XMAX, Side.YMIN, Side.YMAX, Side.ZMIN, Side.ZMAX}) {
+            held.put(s, zero);
+        }
+        return new Problem(new Box(1, 1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y", "z"),
+            Expression.parse(source, "x", "y", "z", "t"), held, true);
     }
 
     /** The double series of the held unit cube with source x y and k = 1, modes 1..n per axis. */
@@ -194,13 +199,9 @@ class BoxPairSourceTest {
 
     @Test
     void refusesSourcesItCannotSplit() {
-        Map<Side, BoundaryCondition> held = new EnumMap<>(Side.class);
-        BoundaryCondition zero = new BoundaryCondition.Dirichlet(Expression.parse("0", "x", "y", "z", "t"));
-        for (Side s : new Side[] {Side.XMIN, Side.XMAX, Side.YMIN, Side.YMAX, Side.ZMIN, Side.ZMAX}) {
-            held.put(s, zero);
-        }
-        Problem coupled = new Problem(new Box(1, 1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y", "z"),
-            Expression.parse("exp(x*y*z)", "x", "y", "z", "t"), held, true);
+        Problem coupled = heldUnitCube("exp(x*y*z)");
+        Map<Side, BoundaryCondition> held = new EnumMap<>(coupled.boundary());
+        BoundaryCondition zero = held.get(Side.ZMIN);
         OracleException e = assertThrows(OracleException.class, () -> Oracle.prepare(coupled, 0, 1e-6));
         assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
         assertTrue(e.getMessage().contains("two coordinates"), e.getMessage());

@@ -10,7 +10,6 @@ import eigencheck.oracle.Oracle;
 import eigencheck.oracle.OracleException;
 import eigencheck.oracle.expr.Expression;
 import eigencheck.oracle.problem.BoundaryCondition;
-import eigencheck.oracle.problem.Box;
 import eigencheck.oracle.problem.Manufactured;
 import eigencheck.oracle.problem.Material;
 import eigencheck.oracle.problem.Problem;
@@ -300,13 +299,7 @@ class GeneralSourceTest {
         assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
         assertTrue(e.getMessage().contains("may be non-smooth"), e.getMessage());
         // a box: sources that are sums of terms of two coordinates each only
-        Map<Side, BoundaryCondition> box = new EnumMap<>(Side.class);
-        BoundaryCondition zero3 = new BoundaryCondition.Dirichlet(Expression.parse("0", "x", "y", "z", "t"));
-        for (Side s : new Side[] {Side.XMIN, Side.XMAX, Side.YMIN, Side.YMAX, Side.ZMIN, Side.ZMAX}) {
-            box.put(s, zero3);
-        }
-        Problem cube = new Problem(new Box(1, 1, 1), Material.ofDiffusivity(1), Expression.parse("0", "x", "y", "z"),
-            Expression.parse("x*y*z", "x", "y", "z", "t"), box, true);
+        Problem cube = BoxPairSourceTest.heldUnitCube("x*y*z");
         e = assertThrows(OracleException.class, () -> Oracle.prepare(cube, 0, 1e-8));
         assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
         assertTrue(e.getMessage().contains("two coordinates each"), e.getMessage());
