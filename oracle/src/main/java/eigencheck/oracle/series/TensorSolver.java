@@ -2640,6 +2640,35 @@ public final class TensorSolver implements SpatialSolver {
     }
 
     /**
+     * The pair terms' face-data errors in a gradient: each term's error H is harmonic with |H| <= E (its share)
+     * and |dH/dx_i| <= 3 E / r, r the radius of a ball where H stays harmonic (the interior gradient estimate,
+     * Gilbarg and Trudinger, Elliptic Partial Differential Equations of Second Order, eq. 2.31). H meets the
+     * homogeneous condition of every face but the term's own data faces across its third axis; across a held or
+     * insulated face an odd or even reflection extends it as harmonic with the same bound, so the ball need only
+     * keep clear of the data faces and the convective faces (in a held cube, 0.1 from two faces and 0.5 from the
+     * data faces gives r = 0.5 where the nearest face gave 0.1).
+     */
+    private double pairGradientError(double[] p, int o) {
+        double total = 0;
+        for (PairTerm t : pairs) {
+            if (type[t.c()][0] == NEUMANN && type[t.c()][1] == NEUMANN) {
+                continue; // no data across its third axis: no error there
+            }
+            double r = Double.POSITIVE_INFINITY;
+            for (int i = 0; i < d; i++) {
+                for (int s = 0; s < 2; s++) {
+                    boolean dataFace = i == t.c() && type[i][s] != NEUMANN;
+                    if (dataFace || type[i][s] == ROBIN) {
+                        r = Math.min(r, s == 0 ? p[o + i] : len[i] - p[o + i]);
+                    }
+                }
+            }
+            total += 3 * t.error() / r;
+        }
+        return total;
+    }
+
+    /**
      * B_f of the source's slab parts along the other axes on a face: P_i, 0, h P_i on a Dirichlet, flux,
      * convective face. A pair term's V must be certified to its share at the point; with {@code excess} not
      * null, a larger (finite) bound is allowed and what it exceeds the share by, in B_f, is added to excess[0].
@@ -3901,14 +3930,7 @@ public final class TensorSolver implements SpatialSolver {
                 g[term.b()] += gv[1];
             }
             if (pairDataError > 0) {
-                // the face data's error H is harmonic with |H| <= E: |dH/dx_i| <= 3 E / r at distance r from the
-                // boundary (the interior gradient estimate, Gilbarg and Trudinger, Elliptic Partial Differential
-                // Equations of Second Order, eq. 2.31)
-                double r = Double.POSITIVE_INFINITY;
-                for (int i = 0; i < d; i++) {
-                    r = Math.min(r, Math.min(p[o + i], len[i] - p[o + i]));
-                }
-                bound += 3 * pairDataError / r;
+                bound += pairGradientError(p, o);
             }
             double blendBudget = budget / (16 * Math.max(1, blends.size()));
             for (Blend b : blends) {
