@@ -6,9 +6,9 @@ import java.util.stream.IntStream;
 
 /**
  * Gauss-Legendre rules on [-1, 1], nodes by Newton's method on the three-term recurrence from
- * Tricomi's initial guess, four nodes per pass of the recurrence; accurate to a few ulps for the orders used here (up to some tens of thousands;
- * Newton stops at a step of 2 ulps, where the absolute test 1e-17 may never be met: without that stop
- * a rule of 1000 nodes took 70 steps per node instead of 3).
+ * Tricomi's initial guess, four nodes per pass of the recurrence; accurate to a few ulps for the orders
+ * used here (up to some tens of thousands; Newton stops at a step of 2 ulps, where the absolute test
+ * 1e-17 may never be met: without that stop a rule of 1000 nodes took 70 steps per node instead of 3).
  * Abramowitz and Stegun, <i>Handbook of Mathematical Functions</i>, 1964, 25.4.29 (weights
  * \(w_i = 2/((1-x_i^2) P_n'(x_i)^2)\)). Rules are cached, immutable and shared between threads.
  */
