@@ -1044,9 +1044,10 @@ public final class TensorSolver implements SpatialSolver {
                     + " is solved on the " + NAMES[a] + "-" + NAMES[b] + " rectangle (read there as x and y), which"
                     + " answered: " + e.getMessage());
             }
-            pairs.add(new PairTerm(a, b, c, t, v.at(Double.POSITIVE_INFINITY), subTolerance * v.scale()));
-            if (type[c][0] != NEUMANN || type[c][1] != NEUMANN) {
-                pairDataError += subTolerance * v.scale();
+            PairTerm term = new PairTerm(a, b, c, t, v.at(Double.POSITIVE_INFINITY), subTolerance * v.scale());
+            pairs.add(term);
+            if (carriesData(term)) {
+                pairDataError += term.error();
             }
         }
         int[] first = coupled.get(0);
@@ -2080,14 +2081,14 @@ public final class TensorSolver implements SpatialSolver {
                 double[][] p = projection(this.size, base);
                 norm = p[1][1];
                 coef = p[0];
-                double lower = 1;
+                double normLower = 1;
                 for (int i = 0; i < tangential.length; i++) {
-                    lower *= axes[tangential[i]].normLowerBound(this.size[i]);
+                    normLower *= axes[tangential[i]].normLowerBound(this.size[i]);
                 }
                 // where a pair term's V is less certain than its share (next to its rectangle's corners), the
                 // excess delta_b moves every coefficient by |<delta_b, X_m>|/||X_m||^2 <= ||delta_b||_1 / normLower
                 // (|X_m| <= 1), the L1 norm measured on the projection's rules and doubled
-                coefficientShift = 2 * p[1][2] / lower;
+                coefficientShift = 2 * p[1][2] / normLower;
                 error = p[1][0] + coefficientShift;
                 int count = coef.length;
                 kappa = new double[count];
@@ -2103,10 +2104,6 @@ public final class TensorSolver implements SpatialSolver {
                 c2 = new double[count];
                 d1 = new double[count];
                 d2 = new double[count];
-                double normLower = 1;
-                for (int i = 0; i < tangential.length; i++) {
-                    normLower *= axes[tangential[i]].normLowerBound(this.size[i]);
-                }
                 double aMax = 0;
                 double yMax = 0;
                 int far = 1 - side;
@@ -2639,6 +2636,11 @@ public final class TensorSolver implements SpatialSolver {
         return m;
     }
 
+    /** Whether a pair term puts data on a face across its third axis (one of them holds or convects). */
+    private boolean carriesData(PairTerm t) {
+        return type[t.c()][0] != NEUMANN || type[t.c()][1] != NEUMANN;
+    }
+
     /**
      * The pair terms' face-data errors in a gradient: each term's error H is harmonic with |H| <= E (its share)
      * and |dH/dx_i| <= 3 E / r, r the radius of a ball where H stays harmonic (the interior gradient estimate,
@@ -2651,8 +2653,8 @@ public final class TensorSolver implements SpatialSolver {
     private double pairGradientError(double[] p, int o) {
         double total = 0;
         for (PairTerm t : pairs) {
-            if (type[t.c()][0] == NEUMANN && type[t.c()][1] == NEUMANN) {
-                continue; // no data across its third axis: no error there
+            if (!carriesData(t)) {
+                continue;
             }
             double r = Double.POSITIVE_INFINITY;
             for (int i = 0; i < d; i++) {

@@ -30,11 +30,10 @@ class BoxPairSourceTest {
     void heaterLineWithInsulatedEndsIsTheRectangle() {
         // a heater line along z in a box whose z faces are insulated: the rectangle's solution, extended as constant
         // in z, satisfies every equation and face of the box, so by uniqueness it is the box's (common practice)
-        Problem box = heaterBox(true);
-        Problem rect = heaterRectangle(true);
         double tol = 1e-6;
-        Oracle b = Oracle.prepare(box, 0, tol);
-        Oracle r = Oracle.prepare(rect, 0, 1e-9);
+        Oracle[] pair = heaterOracles(true, 0, tol);
+        Oracle b = pair[0];
+        Oracle r = pair[1];
         double[][] points = {{0.4, 0.3}, {0.1, 0.7}, {0.8, 0.2}, {1.0, 0.3}, {0.4, 0.0}, {0.6, 0.5}};
         for (double[] p : points) {
             for (double z : new double[] {0.05, 0.3, 0.55}) {
@@ -44,7 +43,7 @@ class BoxPairSourceTest {
         // the gradient's z component vanishes; x and y are the rectangle's
         Evaluation[] g = b.gradient(new double[] {0.6, 0.5, 0.3}, 0);
         // (the rectangle's gradients at 1e-9 would need more than its 1024 modes per axis)
-        Evaluation[] gr = Oracle.prepare(rect, 0, tol).gradient(new double[] {0.6, 0.5}, 0);
+        Evaluation[] gr = Oracle.prepare(heaterRectangle(true), 0, tol).gradient(new double[] {0.6, 0.5}, 0);
         for (int c = 0; c < 2; c++) {
             assertWithin(gr[c].value(), new Evaluation(g[c].value(), g[c].bound() + gr[c].bound()),
                 tol * b.temperatureScale() + gr[c].bound(), "grad component " + c);
@@ -55,16 +54,21 @@ class BoxPairSourceTest {
     @Test
     void heaterLineTransientWithInsulatedEndsIsTheRectangle() {
         // the same uniqueness argument for the transient from a uniform start (common practice)
-        Problem box = heaterBox(false);
-        Problem rect = heaterRectangle(false);
         double tol = 1e-6;
-        Oracle b = Oracle.prepare(box, 0.2, tol);
-        Oracle r = Oracle.prepare(rect, 0.2, 1e-9);
+        Oracle[] pair = heaterOracles(false, 0.2, tol);
+        Oracle b = pair[0];
+        Oracle r = pair[1];
         for (double t : new double[] {0.01, 0.2}) {
             for (double[] p : new double[][] {{0.4, 0.3}, {0.7, 0.6}}) {
                 assertBoxIsRectangle(b, r, p, 0.2, t, tol);
             }
         }
+    }
+
+    /** The heater-line box at {@code tol} and its rectangle at 1e-9, steady or from a uniform start: {box, rectangle}. */
+    private static Oracle[] heaterOracles(boolean steady, double horizon, double tol) {
+        return new Oracle[] {Oracle.prepare(heaterBox(steady), horizon, tol),
+            Oracle.prepare(heaterRectangle(steady), horizon, 1e-9)};
     }
 
     /**
