@@ -60,7 +60,9 @@ import java.util.Map;
  * (its uniform sink balanced by the mean's drift, {@link #driftRate}); side terms there use their
  * shape series less its mean and lags of mean zero ({@link #zeroMeanLag}), and the source must be
  * uniform (a change in time only raises the mean, by its integral). It refuses the rest (UNSUPPORTED), and points nearer to a face with data than its
- * series can reach (TOO_MANY_MODES), except on Dirichlet faces, where u is the data.
+ * series can reach (TOO_MANY_MODES), except on Dirichlet faces, where u is the data, and on and next to a
+ * rectangle's sides, which take the side's series in lifted form ({@link Lifted}) and are refused only next to
+ * a corner where the side's data do not meet the next side's condition.
  */
 public final class TensorSolver implements SpatialSolver {
     private static final double EPS = Math.ulp(1.0);
@@ -2250,17 +2252,9 @@ public final class TensorSolver implements SpatialSolver {
             double kap = tb.kappa[index];
             double a = tb.amplitude[index];
             if (kap == 0 && tb.quadratic[index]) {
-                double[] poly = order == 1 ? tb.quadraticLag1 : tb.quadraticLag2;
-                double v = 0;
-                double dv = 0;
-                for (int i = poly.length - 1; i >= 0; i--) {
-                    v = v * s + poly[i];
-                    if (i > 0) {
-                        dv = dv * s + i * poly[i];
-                    }
-                }
-                out[0] = v;
-                out[1] = dv;
+                double[] vd = polynomial(order == 1 ? tb.quadraticLag1 : tb.quadraticLag2, s);
+                out[0] = vd[0];
+                out[1] = vd[1];
                 return;
             }
             if (kap == 0) {
@@ -2413,7 +2407,7 @@ public final class TensorSolver implements SpatialSolver {
                 r[i] = rr[i][i];
             }
             if (!(s > 0) || r[0] >= 1) {
-                throw tooClose(s);
+                return unreached(p, o, hi, budget, grad, bounds, order, s);
             }
             for (int i = 0; i < nt; i++) {
                 double others = 1;
@@ -2460,7 +2454,7 @@ public final class TensorSolver implements SpatialSolver {
             }
             for (int i = 0; i < nt; i++) {
                 if (m[i] > cap[i]) {
-                    throw tooClose(s);
+                    return unreached(p, o, hi, budget, grad, bounds, order, s);
                 }
             }
             if (order > 0) {
@@ -2598,6 +2592,36 @@ public final class TensorSolver implements SpatialSolver {
                 }
             }
             return 2 * sup * total;
+        }
+
+        /**
+         * A point this face's own series cannot reach: the lifted form of the same function where the face has
+         * one ({@link Lifted}), else refused.
+         */
+        private double unreached(double[] p, int o, double[] hi, double budget, double[] grad, double[] bounds,
+                                 int order, double s) {
+            Lifted l = order == 0 ? lifted() : null;
+            if (l == null) {
+                throw tooClose(s);
+            }
+            return l.add(p, o, hi, budget, grad, bounds);
+        }
+
+        private volatile Lifted lifted;
+        private volatile boolean liftTried;
+
+        /** The lifted form, built on first use; null where the face has none. */
+        private Lifted lifted() {
+            if (liftTried) {
+                return lifted;
+            }
+            synchronized (this) {
+                if (!liftTried) {
+                    lifted = lift(this);
+                    liftTried = true;
+                }
+                return lifted;
+            }
         }
 
         private OracleException tooClose(double s) {
@@ -3530,6 +3554,339 @@ public final class TensorSolver implements SpatialSolver {
     }
 
     /** A wider box of modal coefficients for gradients, with the bound of what it leaves out. */
+    /**
+     * A rectangle side's series in lifted form, for points on or next to that side where the series itself
+     * converges too slowly: its data G (B-form, less the source part) need not meet the conditions of the side's
+     * two ends, so its coefficients fall off like 1/mu^2 only. With l(y) a line that meets the ends' conditions
+     * as G does (B_e l = B_e G at both ends e) and phi(x) the line across the body with B_f phi = 1 on this side
+     * and B phi = 0 on the far one, U_f = H + L + sum_e U_e:
+     * <ul>
+     * <li>H, the side's series of G - l, which meets its ends' conditions: a {@link BlendCorrection} of source
+     * -k G'' (its coefficients (G - l)_n = g_n / (k nu_n^2) by Green's identity), certified on the side itself;</li>
+     * <li>L = phi(x) l(y), bilinear and so harmonic, with B_f L = l, 0 on the far side and phi(x) B_e l on each
+     * end side;</li>
+     * <li>U_e, the end sides' series of -B_e L, which converge exponentially away from those sides.</li>
+     * </ul>
+     * Each part meets the others' conditions, so the sum is U_f exactly; the disagreement of the data moves into
+     * the corners, and only points near a side and an end side both are refused. Between two insulated or
+     * flux-driven ends no line meets both slopes: l is then the quadratic c + a y + b y^2 with the mean of G
+     * (the series has no constant mode there), and L = phi(x) l(y) - 2 b psi(x) with psi'' = phi and B psi = 0
+     * on both sides across, harmonic again. The slab part's error at the ends (its bound in G and G') moves l by
+     * a polynomial whose largest value, over h on a convective side, bounds what it does to u (maximum
+     * principle, common practice).
+     */
+    private final class Lifted {
+        private final Face face;
+        /** l(y) = line[0] + line[1] y + line[2] y^2 + line[3] y^3. */
+        private final double[] line;
+        /** phi(x) = across[0] + across[1] x. */
+        private final double[] across;
+        /** psi(x) = cubic[0] + cubic[1] x + cubic[2] x^2 + cubic[3] x^3, with psi'' = phi and B psi = 0 across. */
+        private final double[] cubic;
+        private final BlendCorrection compatible;
+        private final List<Face> ends;
+        private final double lineError;
+
+        Lifted(Face face, double[] line, double[] across, double[] cubic, BlendCorrection compatible, List<Face> ends,
+               double lineError) {
+            this.face = face;
+            this.line = line;
+            this.across = across;
+            this.cubic = cubic;
+            this.compatible = compatible;
+            this.ends = ends;
+            this.lineError = lineError;
+        }
+
+        /** L at a point, or its mean over the cell to hi: {value, dL/dx_normal, dL/dy, size for rounding}. */
+        private double[] lifting(double[] p, int o, double[] hi) {
+            int a = face.axis;
+            int t = face.tangential[0];
+            double x0 = p[o + a];
+            double y0 = p[o + t];
+            double x1 = hi == null ? x0 : hi[a];
+            double y1 = hi == null ? y0 : hi[t];
+            // two-point Gauss means, exact for the cubics here; the point itself when the cell has no width
+            double ell = 0;
+            double curve = 0;
+            double phi = 0;
+            double psi = 0;
+            double size = 0;
+            for (int q = 0; q < 2; q++) {
+                double shift = (q == 0 ? -0.5 : 0.5) / Math.sqrt(3);
+                double x = 0.5 * (x0 + x1) + shift * (x1 - x0);
+                double y = 0.5 * (y0 + y1) + shift * (y1 - y0);
+                ell += 0.5 * cubicAt(line, y);
+                curve += 0.5 * (2 * line[2] + 6 * line[3] * y);
+                phi += 0.5 * (across[0] + across[1] * x);
+                psi += 0.5 * cubicAt(cubic, x);
+                size += 0.5 * (cubicSize(line, y) * (Math.abs(across[0]) + Math.abs(across[1] * x))
+                    + (2 * Math.abs(line[2]) + 6 * Math.abs(line[3] * y)) * cubicSize(cubic, x));
+            }
+            double value = phi * ell - psi * curve;
+            double x = x0;
+            double y = y0;
+            double dl = line[1] + y * (2 * line[2] + 3 * y * line[3]);
+            double dpsi = cubic[1] + x * (2 * cubic[2] + 3 * x * cubic[3]);
+            double dx = across[1] * cubicAt(line, y) - dpsi * (2 * line[2] + 6 * line[3] * y);
+            double dy = (across[0] + across[1] * x) * dl - cubicAt(cubic, x) * 6 * line[3];
+            return new double[] {value, dx, dy, size};
+        }
+
+        /** As {@link Face#add(double[], int, double[], double, double[], double[], int)} with order 0. */
+        double add(double[] p, int o, double[] hi, double budget, double[] grad, double[] bounds) {
+            int a = face.axis;
+            int t = face.tangential[0];
+            double[] l = lifting(p, o, hi);
+            double value = l[0];
+            double bound = lineError + 8 * EPS * l[3];
+            double gradientBound = 8 * EPS * (Math.abs(l[1]) + Math.abs(l[2])) + 8 * EPS * l[3] / lengthScale;
+            double s;
+            double[] c;
+            if (hi == null) {
+                s = face.distance(p, o);
+                double[] gc = grad == null ? null : new double[2];
+                c = compatible.add(p[o + t], s, Double.NaN, Double.NaN, budget / 2, budget / (2 * lengthScale), gc);
+                if (grad != null) {
+                    grad[a] += l[1] + (face.side == 0 ? 1 : -1) * gc[1];
+                    grad[t] += l[2] + gc[0];
+                }
+            } else {
+                s = face.side == 0 ? p[o + a] : len[a] - hi[a];
+                double s1 = face.side == 0 ? hi[a] : len[a] - p[o + a];
+                c = compatible.add(p[o + t], s, hi[t], s1, budget / 2, 0, null);
+            }
+            value += c[0];
+            bound += c[1];
+            gradientBound += c[2];
+            double[] part = new double[2];
+            for (Face e : ends) {
+                try {
+                    value += e.add(p, o, hi, budget / (2 * ends.size()), grad, part, 0);
+                } catch (OracleException ex) {
+                    if (ex.reason() != Reason.TOO_MANY_MODES) {
+                        throw ex;
+                    }
+                    throw new OracleException(Reason.TOO_MANY_MODES, "oracle: the point is " + s + " m from face "
+                        + SIDES[a][face.side].key() + " and " + e.distance(p, o) + " m from face "
+                        + SIDES[e.axis][e.side].key() + ", next to the corner where they meet; the data of "
+                        + SIDES[a][face.side].key() + " do not meet the condition of " + SIDES[e.axis][e.side].key()
+                        + " there, and points this close to such a corner are not certified in this version");
+                }
+                bound += part[0];
+                gradientBound += part[1];
+            }
+            bounds[0] = bound;
+            bounds[1] = gradientBound;
+            return value;
+        }
+    }
+
+    private static double cubicAt(double[] c, double x) {
+        return c[0] + x * (c[1] + x * (c[2] + x * c[3]));
+    }
+
+    private static double cubicSize(double[] c, double x) {
+        return Math.abs(c[0]) + Math.abs(x * c[1]) + Math.abs(x * x * c[2]) + Math.abs(x * x * x * c[3]);
+    }
+
+    /** {c0, c1} of a face condition B u = c0 u + c1 du/dx_axis at that face (c1 carries k and the normal's sign). */
+    private double[] conditionWeights(int axis, int side) {
+        double sign = side == 0 ? -1 : 1;
+        return switch (type[axis][side]) {
+            case DIRICHLET -> new double[] {1, 0};
+            case NEUMANN -> new double[] {0, sign * k};
+            default -> new double[] {h[axis][side], sign * k};
+        };
+    }
+
+    /** B at a face of axis {@code axis} of the polynomial sum_j c_j x^j. */
+    private double conditionOf(int axis, int side, double[] c) {
+        double[] w = conditionWeights(axis, side);
+        double[] vd = polynomial(c, side == 0 ? 0 : len[axis]);
+        return w[0] * vd[0] + w[1] * vd[1];
+    }
+
+    /** {p(x), p'(x)} of p = sum_j c_j x^j, by Horner's scheme. */
+    private static double[] polynomial(double[] c, double x) {
+        double value = 0;
+        double slope = 0;
+        for (int j = c.length - 1; j >= 0; j--) {
+            value = value * x + c[j];
+            if (j > 0) {
+                slope = slope * x + j * c[j];
+            }
+        }
+        return new double[] {value, slope};
+    }
+
+    /** The inverse of the two faces' conditions on c + c' x along an axis, or null when no line meets both. */
+    private double[][] lineInverse(int axis) {
+        double[][] rows = new double[2][];
+        for (int side = 0; side < 2; side++) {
+            rows[side] = new double[] {conditionOf(axis, side, new double[] {1}), conditionOf(axis, side, new double[] {0, 1})};
+        }
+        double det = rows[0][0] * rows[1][1] - rows[0][1] * rows[1][0];
+        double size = Math.abs(rows[0][0] * rows[1][1]) + Math.abs(rows[0][1] * rows[1][0]);
+        if (!(Math.abs(det) > 1e-10 * size)) {
+            return null;
+        }
+        return new double[][] {{rows[1][1] / det, -rows[0][1] / det}, {-rows[1][0] / det, rows[0][0] / det}};
+    }
+
+    /**
+     * The lifted form of a rectangle side's series ({@link Lifted}), or null where there is none: a box, a
+     * schedule's shape, data that may be non-smooth, a body insulated or flux-driven on every side, a source
+     * with a blend, or a side whose far side is insulated or flux-driven as well as itself (no line across
+     * meets both).
+     */
+    private Lifted lift(Face f) {
+        int a = f.axis;
+        int t = f.tangential[0];
+        if (d != 2 || f.shape != null || allFlux || remainder != null || !pairs.isEmpty()
+            || !Double.isFinite(f.variation)) {
+            return null;
+        }
+        double[][] acrossInverse = lineInverse(a);
+        if (acrossInverse == null) {
+            return null;
+        }
+        double[][] alongInverse = lineInverse(t);
+        int own = type[a][f.side];
+        double dataWeight = own == ROBIN ? h[a][f.side] : 1;
+        double partWeight = own == DIRICHLET ? 1 : own == ROBIN ? h[a][f.side] : 0;
+        Expression along = data[a][f.side];
+        if (along.variables().contains("t")) {
+            along = along.substitute("t", 0);
+        }
+        if (along.variables().contains(NAMES[a])) {
+            along = along.substitute(NAMES[a], f.side == 0 ? 0 : len[a]);
+        }
+        along = along.over(NAMES[t]);
+        Expression slope = along.derivative(NAMES[t]);
+        Expression curvature = slope.derivative(NAMES[t]);
+        // the compatible part's source: -k (G - l)'' = -k w data'' + w_P k P'' + k l'' = -k w data'' - w_P Q_t + k l''
+        Expression source = curvature.linear(-k * dataWeight, curvature, 0);
+        SlabSolver.Slice part = partWeight == 0 ? null : sourceSlices[t];
+        if (part != null) {
+            source = source.linear(1, sourcePart(t), -partWeight);
+        }
+        double[] g = new double[2];
+        double[] dg = new double[2];
+        double[] valueError = new double[2];
+        double[] slopeError = new double[2];
+        double[] point = new double[d];
+        point[a] = f.side == 0 ? 0 : len[a];
+        for (int e = 0; e < 2; e++) {
+            double y = e == 0 ? 0 : len[t];
+            point[t] = y;
+            g[e] = f.boundaryData(point);
+            dg[e] = dataWeight * slope.value(y);
+            if (part != null) {
+                Evaluation flux = part.heatFlux(y);
+                dg[e] += partWeight * flux.value() / k; // G' = w data' - w_P P', P' = -flux / k
+                valueError[e] = partWeight * part.temperature(y).bound();
+                slopeError[e] = partWeight * flux.bound() / k;
+            }
+        }
+        double[] line;
+        double lineBound;
+        double lt = len[t];
+        if (alongInverse != null) {
+            // l'' = 2 c2 + 6 c3 y meets the ends' conditions as G'' does, then c0 + c1 y the rest of l's
+            Expression third = curvature.derivative(NAMES[t]);
+            Expression q = part == null ? null : sourcePart(t);
+            Expression dq = q == null ? null : q.derivative(NAMES[t]);
+            double[] rhs = new double[2];
+            for (int e = 0; e < 2; e++) {
+                double y = e == 0 ? 0 : len[t];
+                // G'' = w data'' - w_P P'' = w data'' + w_P Q / k, and G''' likewise
+                double g2 = dataWeight * curvature.value(y) + (q == null ? 0 : partWeight * q.value(y) / k);
+                double g3 = dataWeight * third.value(y) + (dq == null ? 0 : partWeight * dq.value(y) / k);
+                double[] w = conditionWeights(t, e);
+                rhs[e] = w[0] * g2 + w[1] * g3;
+            }
+            double a2 = alongInverse[0][0] * rhs[0] + alongInverse[0][1] * rhs[1];
+            double a3 = alongInverse[1][0] * rhs[0] + alongInverse[1][1] * rhs[1];
+            line = new double[] {0, 0, a2 / 2, a3 / 6};
+            double[] mismatch = new double[2];
+            for (int e = 0; e < 2; e++) {
+                double[] w = conditionWeights(t, e);
+                rhs[e] = w[0] * g[e] + w[1] * dg[e] - conditionOf(t, e, line);
+                mismatch[e] = Math.abs(w[0]) * valueError[e] + Math.abs(w[1]) * slopeError[e];
+            }
+            line[0] = alongInverse[0][0] * rhs[0] + alongInverse[0][1] * rhs[1];
+            line[1] = alongInverse[1][0] * rhs[0] + alongInverse[1][1] * rhs[1];
+            double c0 = Math.abs(alongInverse[0][0]) * mismatch[0] + Math.abs(alongInverse[0][1]) * mismatch[1];
+            double c1 = Math.abs(alongInverse[1][0]) * mismatch[0] + Math.abs(alongInverse[1][1]) * mismatch[1];
+            lineBound = c0 + c1 * lt;
+            Expression y = Expression.parse(NAMES[t], NAMES[t]);
+            source = source.linear(1, Expression.constant(1, NAMES[t]), 2 * k * line[2]).linear(1, y, 6 * k * line[3]);
+        } else {
+            // both ends insulated or flux-driven: l' meets G' at both, and l has G's mean
+            double b = (dg[1] - dg[0]) / (2 * lt);
+            double mean = meanAlong(f, t);
+            line = new double[] {mean - dg[0] * lt / 2 - b * lt * lt / 3, dg[0], b, 0};
+            source = source.linear(1, Expression.constant(1, NAMES[t]), 2 * k * b);
+            lineBound = 2.5 * (slopeError[0] + slopeError[1]) * lt + Math.max(valueError[0], valueError[1]);
+        }
+        double lineError = lineBound / (own == ROBIN ? h[a][f.side] : 1);
+        double[] across = {acrossInverse[0][f.side], acrossInverse[1][f.side]};
+        // psi = p x^2 / 2 + q x^3 / 6 + r + s x with B psi = 0 on both sides across
+        double[] cubic = {0, 0, across[0] / 2, across[1] / 6};
+        double[] rhsAcross = {-conditionOf(a, 0, cubic), -conditionOf(a, 1, cubic)};
+        cubic[0] = acrossInverse[0][0] * rhsAcross[0] + acrossInverse[0][1] * rhsAcross[1];
+        cubic[1] = acrossInverse[1][0] * rhsAcross[0] + acrossInverse[1][1] * rhsAcross[1];
+        List<Face> ends = new ArrayList<>();
+        for (int e = 0; e < 2; e++) {
+            // B_e L = phi(x) B_e l - psi(x) B_e l''; the end side's series takes minus that (over h if convective)
+            double bl = conditionOf(t, e, line);
+            double bc = conditionOf(t, e, new double[] {2 * line[2], 6 * line[3]});
+            double over = type[t][e] == ROBIN ? h[t][e] : 1;
+            double[] c = new double[4];
+            for (int j = 0; j < 4; j++) {
+                c[j] = (-(j < 2 ? bl * across[j] : 0) + bc * cubic[j]) / over;
+            }
+            if (c[0] == 0 && c[1] == 0 && c[2] == 0 && c[3] == 0) {
+                continue;
+            }
+            Expression x = Expression.parse(NAMES[a], NAMES[a]);
+            Expression shape = Expression.constant(c[0], NAMES[a]).linear(1, x, c[1])
+                .linear(1, x.times(x), c[2]).linear(1, x.times(x).times(x), c[3]);
+            Face end = new Face(t, e, shape);
+            if (end.present) {
+                ends.add(end);
+            }
+        }
+        BlendCorrection compatible = blendCorrection(a, f.side, t, source, -1, tolerance * scale / (8 * faces.size()), null);
+        return new Lifted(f, line, across, cubic, compatible, ends, lineError);
+    }
+
+    /** The source's part along an axis, Q_i, as an expression of that coordinate alone (at t = 0). */
+    private Expression sourcePart(int axis) {
+        Expression q = sourceParts[axis];
+        if (q.variables().contains("t")) {
+            q = q.substitute("t", 0);
+        }
+        if (axis != 0) {
+            q = q.renamed("x", NAMES[axis]);
+        }
+        return q.over(NAMES[axis]);
+    }
+
+    /** The mean of a side's data (B-form, less the source part) along it, by a 2048-point Gauss rule. */
+    private double meanAlong(Face f, int t) {
+        double[][] r = GaussLegendre.onInterval(2048, len[t]);
+        double[] point = new double[d];
+        point[f.axis] = f.side == 0 ? 0 : len[f.axis];
+        double sum = 0;
+        for (int q = 0; q < 2048; q++) {
+            point[t] = r[0][q];
+            sum += r[1][q] * f.boundaryData(point);
+        }
+        return sum / len[t];
+    }
+
     private record GradientBox(int[] m, double[] weighted, double bound) {
     }
 

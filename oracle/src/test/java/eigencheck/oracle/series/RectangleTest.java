@@ -198,8 +198,17 @@ class RectangleTest {
             assertWithin(mean, o.cellAverage(new double[] {x0, y0}, new double[] {x0 + hx, y0 + hy}, t),
                 1e-10 * o.temperatureScale(), "cell mean at " + x0 + ", " + y0);
         }
-        assertThrows(OracleException.class, () -> o.cellAverage(new double[] {0, 0.1}, new double[] {0.1, 0.2}, 1),
-            "a cell touching a face with data is refused");
+        // a cell touching the held side x = 0, whose data 1 - y^2 do not meet the convective end y = 0.7's
+        // condition: the side's series in lifted form (RectangleSideTest)
+        double touching = 0;
+        for (int a = 0; a < 20; a++) {
+            for (int b = 0; b < 20; b++) {
+                touching += rule.getWeight(a) * rule.getWeight(b) * exact.value(0.1 * rule.getPoint(a),
+                    0.1 + 0.1 * rule.getPoint(b), 1);
+            }
+        }
+        assertWithin(touching, o.cellAverage(new double[] {0, 0.1}, new double[] {0.1, 0.2}, 1),
+            1e-10 * o.temperatureScale(), "a cell touching a side with data");
     }
 
     @Test
@@ -243,10 +252,11 @@ class RectangleTest {
             assertEquals(alone.bound(), bound[i], 0.01 * alone.bound(), "bound at " + q[0] + ", " + q[1] + ", t = " + t[i]);
             assertWithin(exact.value(q[0], q[1], t[i]), alone, 1e-10 * o.temperatureScale(), "u at point " + i);
         }
-        // a point 1e-7 of the edge from the Dirichlet side x = 0 cannot be certified: the bulk call names it
+        // a point 1e-7 of the edge from the corner where the held side x = 0 meets the convective y = 0.7, whose
+        // condition its data 1 - y^2 do not meet, cannot be certified: the bulk call names it
         double[] withNear = java.util.Arrays.copyOf(points, 2 * n + 2);
         withNear[2 * n] = 1e-7;
-        withNear[2 * n + 1] = 0.3;
+        withNear[2 * n + 1] = ly - 1e-7;
         double[] tNear = java.util.Arrays.copyOf(t, n + 1);
         tNear[n] = 0.4;
         OracleException refused = assertThrows(OracleException.class,
