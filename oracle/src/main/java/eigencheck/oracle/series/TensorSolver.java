@@ -3736,14 +3736,14 @@ public final class TensorSolver implements SpatialSolver {
 
     /**
      * The lifted form of a rectangle side's series ({@link Lifted}), or null where there is none: a box, a
-     * schedule's shape, data that may be non-smooth, a body insulated or flux-driven on every side, a source
-     * with a blend, or a side whose far side is insulated or flux-driven as well as itself (no line across
-     * meets both).
+     * schedule's shape, data that may be non-smooth, a body insulated or flux-driven on every side, or a side
+     * whose far side is insulated or flux-driven as well as itself (no line across meets both). A source with a
+     * blend leaves the side data alone (its parts and remainder meet every side's condition), so it is lifted.
      */
     private Lifted lift(Face f) {
         int a = f.axis;
         int t = f.tangential[0];
-        if (d != 2 || f.shape != null || allFlux || remainder != null || !pairs.isEmpty()
+        if (d != 2 || f.shape != null || allFlux || !pairs.isEmpty()
             || !Double.isFinite(f.variation)) {
             return null;
         }

@@ -173,4 +173,30 @@ class RectangleSideTest {
             assertWithin(exact.derivative("y").value(q[0], q[1], 0), g[1], gradientLimit, "du/dy at " + q[0] + ", " + q[1]);
         }
     }
+    /**
+     * A source that is not a sum of one-coordinate terms with convection on every side (manufactured, common
+     * practice): u = sin(2 x y) + x y^2 on 1 x 0.8, k = 1, h = 3, 5, 1, 2, so Q = k (4 (x^2 + y^2) sin(2 x y) - 2 x);
+     * the side data do not vanish at any corner. Values on every side at 1e-9.
+     */
+    @Test
+    void productSourceWithConvectionOnEverySide() {
+        Expression exact = Expression.parse("sin(2*x*y) + x*y*y", "x", "y", "t");
+        Map<Side, Manufactured.Face> kinds = new EnumMap<>(Side.class);
+        kinds.put(Side.XMIN, Manufactured.Face.robin(3));
+        kinds.put(Side.XMAX, Manufactured.Face.robin(5));
+        kinds.put(Side.YMIN, Manufactured.Face.robin(1));
+        kinds.put(Side.YMAX, Manufactured.Face.robin(2));
+        Problem derived = Manufactured.cartesian(exact, new Rectangle(1, 0.8), Material.ofDiffusivity(1), kinds);
+        Problem steady = new Problem(derived.domain(), derived.material(), derived.initial(), derived.source(),
+            derived.boundary(), true);
+        Oracle o = Oracle.prepare(steady, 0, 1e-9);
+        double limit = 1e-9 * o.temperatureScale();
+        for (int i = 0; i <= 8; i++) {
+            double s = 0.05 + 0.9 * i / 8;
+            double[][] onSides = {{0, 0.8 * s}, {1, 0.8 * s}, {s, 0}, {s, 0.8}, {0.9999, 0.8 * s}};
+            for (double[] q : onSides) {
+                assertWithin(exact.value(q[0], q[1], 0), o.temperature(q, 0), limit, "u at " + q[0] + ", " + q[1]);
+            }
+        }
+    }
 }
