@@ -61,8 +61,9 @@ import java.util.Map;
  * shape series less its mean and lags of mean zero ({@link #zeroMeanLag}), and the source must be
  * uniform (a change in time only raises the mean, by its integral). It refuses the rest (UNSUPPORTED), and points nearer to a face with data than its
  * series can reach (TOO_MANY_MODES), except on Dirichlet faces, where u is the data, and on and next to a
- * rectangle's sides, which take the side's series in lifted form ({@link Lifted}) and are refused only next to
- * a corner where the side's data do not meet the next side's condition.
+ * rectangle's sides, which take the side's series in lifted form ({@link Lifted}), and next to its corners, where
+ * the faces are summed jointly ({@link Joint}); only points next to a corner where two sides' data disagree are
+ * refused.
  */
 public final class TensorSolver implements SpatialSolver {
     private static final double EPS = Math.ulp(1.0);
@@ -1834,17 +1835,27 @@ public final class TensorSolver implements SpatialSolver {
         final boolean present;
         /** The shape phi of a term of the data's change in time (B-form data phi, or h phi), or null: the data at t = 0. */
         final Expression shape;
+        /**
+         * B-form data added to the side's own (a rectangle's joint lifting, {@link Joint}): a polynomial in the
+         * tangential coordinate, or null.
+         */
+        final Expression extra;
         private final double variation;
         private volatile Table table;
 
         Face(int axis, int side) {
-            this(axis, side, null);
+            this(axis, side, null, null);
         }
 
         Face(int axis, int side, Expression shape) {
+            this(axis, side, shape, null);
+        }
+
+        Face(int axis, int side, Expression shape, Expression extra) {
             this.axis = axis;
             this.side = side;
             this.shape = shape;
+            this.extra = extra;
             this.depth = len[axis];
             tangential = new int[d - 1];
             for (int i = 0, j = 0; i < d; i++) {
@@ -1865,7 +1876,8 @@ public final class TensorSolver implements SpatialSolver {
         /** The data this face's series solves at a point on it: the shifted data less the source part, or the shape. */
         double boundaryData(double[] point) {
             if (shape == null) {
-                return shiftedData(axis, side, point) - sourcePart(axis, side, point, null);
+                return shiftedData(axis, side, point) - sourcePart(axis, side, point, null)
+                    + (extra == null ? 0 : valueAt(extra, point));
             }
             double g = valueAt(shape, point);
             return type[axis][side] == ROBIN ? h[axis][side] * g : g;
@@ -1911,6 +1923,7 @@ public final class TensorSolver implements SpatialSolver {
                 return Double.NaN;
             }
             Expression de = e.variables().contains(NAMES[t]) ? e.derivative(NAMES[t]) : null;
+            Expression dExtra = extra == null ? null : extra.derivative(NAMES[t]);
             double scaleData = type[axis][side] == ROBIN ? h[axis][side] : 1;
             double[] point = new double[d];
             point[axis] = side == 0 ? 0 : len[axis];
@@ -1918,7 +1931,7 @@ public final class TensorSolver implements SpatialSolver {
             double integral = 0;
             for (int q = 0; q < 2048; q++) {
                 point[t] = rule[0][q];
-                double g = de == null ? 0 : scaleData * valueAt(de, point);
+                double g = (de == null ? 0 : scaleData * valueAt(de, point)) + (dExtra == null ? 0 : valueAt(dExtra, point));
                 if (shape == null && sourceSlices[t] != null && type[axis][side] != NEUMANN) {
                     double slope = -sourceSlices[t].heatFlux(point[t]).value() / k;
                     g -= (type[axis][side] == ROBIN ? h[axis][side] : 1) * slope;
@@ -3532,10 +3545,8 @@ public final class TensorSolver implements SpatialSolver {
             bound += vb[1] + r.bound();
         }
         double faceBudget = tolerance * scale / (4 * faces.size());
-        for (Face f : faces) {
-            value += f.add(p, o, faceBudget, null, bounds);
-            bound += bounds[0];
-        }
+        value += addFaces(p, o, null, faceBudget, null, bounds);
+        bound += bounds[0];
         return new Evaluation(value, bound);
     }
 
@@ -3585,17 +3596,34 @@ public final class TensorSolver implements SpatialSolver {
         private final double[] cubic;
         private final BlendCorrection compatible;
         private final List<Face> ends;
+        /** Per end side: the B-form data -B_e L its series takes (cubic coefficients in x), or null. */
+        private final double[][] endData;
+        /**
+         * Per end series: max |data| times the largest of zeta, the line across that side with B zeta = 1 on it and
+         * 0 on the far side; zeta max|data| +- U_e meets B >= 0 on every side, so |U_e| is below it (maximum
+         * principle).
+         */
+        private final double[] endBarrier;
         private final double lineError;
 
         Lifted(Face face, double[] line, double[] across, double[] cubic, BlendCorrection compatible, List<Face> ends,
-               double lineError) {
+               double[][] endData, double lineError) {
             this.face = face;
             this.line = line;
             this.across = across;
             this.cubic = cubic;
             this.compatible = compatible;
             this.ends = ends;
+            this.endData = endData;
             this.lineError = lineError;
+            endBarrier = new double[ends.size()];
+            for (int i = 0; i < ends.size(); i++) {
+                Face e = ends.get(i);
+                double[][] inverse = lineInverse(e.axis);
+                double zeta = inverse == null ? Double.POSITIVE_INFINITY
+                    : Math.max(Math.abs(inverse[0][e.side]), Math.abs(inverse[0][e.side] + inverse[1][e.side] * len[e.axis]));
+                endBarrier[i] = zeta * cubicMax(endData[e.side], len[face.axis]);
+            }
         }
 
         /** L at a point, or its mean over the cell to hi: {value, dL/dx_normal, dL/dy, size for rounding}. */
@@ -3635,6 +3663,11 @@ public final class TensorSolver implements SpatialSolver {
 
         /** As {@link Face#add(double[], int, double[], double, double[], double[], int)} with order 0. */
         double add(double[] p, int o, double[] hi, double budget, double[] grad, double[] bounds) {
+            return add(p, o, hi, budget, grad, bounds, true);
+        }
+
+        /** L + H, and with {@code withEnds} the end sides' series too (without them: a part of {@link Joint}). */
+        double add(double[] p, int o, double[] hi, double budget, double[] grad, double[] bounds, boolean withEnds) {
             int a = face.axis;
             int t = face.tangential[0];
             double[] l = lifting(p, o, hi);
@@ -3660,7 +3693,13 @@ public final class TensorSolver implements SpatialSolver {
             bound += c[1];
             gradientBound += c[2];
             double[] part = new double[2];
-            for (Face e : ends) {
+            for (int i = 0; withEnds && i < ends.size(); i++) {
+                Face e = ends.get(i);
+                if (grad == null && endBarrier[i] <= budget / (16 * ends.size())) {
+                    // data this small (the rounding of a corner where the data agree): bounded, not summed
+                    bound += endBarrier[i];
+                    continue;
+                }
                 try {
                     value += e.add(p, o, hi, budget / (2 * ends.size()), grad, part, 0);
                 } catch (OracleException ex) {
@@ -3680,6 +3719,189 @@ public final class TensorSolver implements SpatialSolver {
             bounds[1] = gradientBound;
             return value;
         }
+    }
+
+    /** sum_j c_j x_axis^j as an expression of that coordinate. */
+    private static Expression cubicOver(double[] c, int axis) {
+        Expression x = Expression.parse(NAMES[axis], NAMES[axis]);
+        return Expression.constant(c[0], NAMES[axis]).linear(1, x, c[1]).linear(1, x.times(x), c[2])
+            .linear(1, x.times(x).times(x), c[3]);
+    }
+
+    /**
+     * A rectangle's faces written jointly, for points next to a corner where the per-side lifted forms do not
+     * reach: with the sides of one axis lifted (L_f + H_f each, {@link Lifted}), the sides of the other axis
+     * take their own data plus what those liftings leave on them, -sum_f B_e L_f, as one series each (itself
+     * lifted near its side). At a corner where the two sides' data agree as the data of a smooth solution do
+     * (B_f G_e = B_e G_f, and the same for G''), that joint data meet the corner's condition, so nothing is
+     * left there and the corner is certified; where they disagree, the joint side's own lifting leaves data
+     * on the first side next to the corner and the point is refused as before.
+     */
+    private final class Joint {
+        private final List<Lifted> lifts;
+        private final List<Face> joined;
+
+        Joint(List<Lifted> lifts, List<Face> joined) {
+            this.lifts = lifts;
+            this.joined = joined;
+        }
+
+        /** The faces' sum at a point (or a cell's mean), within {@code budget} in all. */
+        double add(double[] p, int o, double[] hi, double budget, double[] grad, double[] bounds) {
+            double share = budget / (lifts.size() + joined.size());
+            double[] part = new double[2];
+            double value = 0;
+            double valueBound = 0;
+            double gradientBound = 0;
+            for (Lifted l : lifts) {
+                value += l.add(p, o, hi, share, grad, part, false);
+                valueBound += part[0];
+                gradientBound += part[1];
+            }
+            for (Face f : joined) {
+                value += f.add(p, o, hi, share, grad, part, 0);
+                valueBound += part[0];
+                gradientBound += part[1];
+            }
+            bounds[0] = valueBound;
+            bounds[1] = gradientBound;
+            return value;
+        }
+    }
+
+    private volatile Joint joint;
+    private volatile boolean jointTried;
+
+    /** The joint form of a rectangle's faces, built on first use; null where a side of either axis has no lifted form. */
+    private Joint joint() {
+        if (jointTried) {
+            return joint;
+        }
+        synchronized (this) {
+            if (!jointTried) {
+                joint = buildJoint();
+                jointTried = true;
+            }
+            return joint;
+        }
+    }
+
+    private Joint buildJoint() {
+        if (d != 2) {
+            return null;
+        }
+        for (int first = 0; first < 2; first++) {
+            List<Lifted> lifts = new ArrayList<>();
+            boolean all = true;
+            for (Face f : faces) {
+                if (f.axis == first) {
+                    Lifted l = f.lifted();
+                    all &= l != null;
+                    if (l != null) {
+                        lifts.add(l);
+                    }
+                }
+            }
+            if (!all || lifts.isEmpty()) {
+                continue;
+            }
+            int other = 1 - first;
+            List<Face> joined = new ArrayList<>();
+            for (int e = 0; e < 2; e++) {
+                double[] c = new double[4];
+                boolean any = false;
+                for (Lifted l : lifts) {
+                    if (l.endData[e] != null) {
+                        any = true;
+                        for (int j = 0; j < 4; j++) {
+                            c[j] += l.endData[e][j];
+                        }
+                    }
+                }
+                Face own = null;
+                for (Face f : faces) {
+                    if (f.axis == other && f.side == e) {
+                        own = f;
+                    }
+                }
+                if (!any) {
+                    if (own != null) {
+                        joined.add(own);
+                    }
+                    continue;
+                }
+                Face j = new Face(other, e, null, cubicOver(c, first));
+                if (j.present) {
+                    joined.add(j);
+                }
+            }
+            return new Joint(lifts, joined);
+        }
+        return null;
+    }
+
+    /**
+     * The faces' series at a point (or a cell's mean), {@code budget} each, into grad and bounds {value, gradient}:
+     * face by face, or where that is refused next to a rectangle's corner, by the {@link Joint} form.
+     */
+    private double addFaces(double[] p, int o, double[] hi, double budget, double[] grad, double[] bounds) {
+        double[] g = grad == null ? null : new double[d];
+        double[] part = new double[2];
+        double value = 0;
+        double valueBound = 0;
+        double gradientBound = 0;
+        try {
+            for (Face f : faces) {
+                value += f.add(p, o, hi, budget, g, part, 0);
+                valueBound += part[0];
+                gradientBound += part[1];
+            }
+        } catch (OracleException e) {
+            Joint j = e.reason() == Reason.TOO_MANY_MODES ? joint() : null;
+            if (j == null) {
+                throw e;
+            }
+            g = grad == null ? null : new double[d];
+            try {
+                value = j.add(p, o, hi, budget * faces.size(), g, part);
+            } catch (OracleException again) {
+                // next to a corner where the data disagree the side's own refusal names that corner
+                throw again.reason() == Reason.TOO_MANY_MODES ? e : again;
+            }
+            valueBound = part[0];
+            gradientBound = part[1];
+        }
+        if (grad != null) {
+            for (int i = 0; i < d; i++) {
+                grad[i] += g[i];
+            }
+        }
+        bounds[0] = valueBound;
+        bounds[1] = gradientBound;
+        return value;
+    }
+
+    /** max |sum_j c_j x^j| over [0, length]: at the ends and where the slope vanishes. */
+    private static double cubicMax(double[] c, double length) {
+        double max = Math.max(Math.abs(c[0]), Math.abs(cubicAt(c, length)));
+        // roots of c1 + 2 c2 x + 3 c3 x^2
+        double a = 3 * c[3];
+        double b = 2 * c[2];
+        double q = c[1];
+        double[] roots;
+        if (a == 0) {
+            roots = b == 0 ? new double[0] : new double[] {-q / b};
+        } else {
+            double disc = b * b - 4 * a * q;
+            roots = disc < 0 ? new double[0]
+                : new double[] {(-b + Math.sqrt(disc)) / (2 * a), (-b - Math.sqrt(disc)) / (2 * a)};
+        }
+        for (double r : roots) {
+            if (r > 0 && r < length) {
+                max = Math.max(max, Math.abs(cubicAt(c, r)));
+            }
+        }
+        return max * (1 + 1e-12);
     }
 
     private static double cubicAt(double[] c, double x) {
@@ -3767,6 +3989,11 @@ public final class TensorSolver implements SpatialSolver {
         Expression curvature = slope.derivative(NAMES[t]);
         // the compatible part's source: -k (G - l)'' = -k w data'' + w_P k P'' + k l'' = -k w data'' - w_P Q_t + k l''
         Expression source = curvature.linear(-k * dataWeight, curvature, 0);
+        Expression extraSlope = f.extra == null ? null : f.extra.derivative(NAMES[t]);
+        Expression extraCurvature = f.extra == null ? null : extraSlope.derivative(NAMES[t]);
+        if (extraCurvature != null) {
+            source = source.linear(1, extraCurvature, -k);
+        }
         SlabSolver.Slice part = partWeight == 0 ? null : sourceSlices[t];
         if (part != null) {
             source = source.linear(1, sourcePart(t), -partWeight);
@@ -3781,7 +4008,7 @@ public final class TensorSolver implements SpatialSolver {
             double y = e == 0 ? 0 : len[t];
             point[t] = y;
             g[e] = f.boundaryData(point);
-            dg[e] = dataWeight * slope.value(y);
+            dg[e] = dataWeight * slope.value(y) + (extraSlope == null ? 0 : extraSlope.value(y));
             if (part != null) {
                 Evaluation flux = part.heatFlux(y);
                 dg[e] += partWeight * flux.value() / k; // G' = w data' - w_P P', P' = -flux / k
@@ -3801,8 +4028,10 @@ public final class TensorSolver implements SpatialSolver {
             for (int e = 0; e < 2; e++) {
                 double y = e == 0 ? 0 : len[t];
                 // G'' = w data'' - w_P P'' = w data'' + w_P Q / k, and G''' likewise
-                double g2 = dataWeight * curvature.value(y) + (q == null ? 0 : partWeight * q.value(y) / k);
-                double g3 = dataWeight * third.value(y) + (dq == null ? 0 : partWeight * dq.value(y) / k);
+                double g2 = dataWeight * curvature.value(y) + (q == null ? 0 : partWeight * q.value(y) / k)
+                    + (extraCurvature == null ? 0 : extraCurvature.value(y));
+                double g3 = dataWeight * third.value(y) + (dq == null ? 0 : partWeight * dq.value(y) / k)
+                    + (extraCurvature == null ? 0 : extraCurvature.derivative(NAMES[t]).value(y));
                 double[] w = conditionWeights(t, e);
                 rhs[e] = w[0] * g2 + w[1] * g3;
             }
@@ -3838,6 +4067,7 @@ public final class TensorSolver implements SpatialSolver {
         cubic[0] = acrossInverse[0][0] * rhsAcross[0] + acrossInverse[0][1] * rhsAcross[1];
         cubic[1] = acrossInverse[1][0] * rhsAcross[0] + acrossInverse[1][1] * rhsAcross[1];
         List<Face> ends = new ArrayList<>();
+        double[][] endData = new double[2][];
         for (int e = 0; e < 2; e++) {
             // B_e L = phi(x) B_e l - psi(x) B_e l''; the end side's series takes minus that (over h if convective)
             double bl = conditionOf(t, e, line);
@@ -3850,16 +4080,17 @@ public final class TensorSolver implements SpatialSolver {
             if (c[0] == 0 && c[1] == 0 && c[2] == 0 && c[3] == 0) {
                 continue;
             }
-            Expression x = Expression.parse(NAMES[a], NAMES[a]);
-            Expression shape = Expression.constant(c[0], NAMES[a]).linear(1, x, c[1])
-                .linear(1, x.times(x), c[2]).linear(1, x.times(x).times(x), c[3]);
-            Face end = new Face(t, e, shape);
+            endData[e] = new double[4];
+            for (int j = 0; j < 4; j++) {
+                endData[e][j] = c[j] * over;
+            }
+            Face end = new Face(t, e, cubicOver(c, a));
             if (end.present) {
                 ends.add(end);
             }
         }
         BlendCorrection compatible = blendCorrection(a, f.side, t, source, -1, tolerance * scale / (8 * faces.size()), null);
-        return new Lifted(f, line, across, cubic, compatible, ends, lineError);
+        return new Lifted(f, line, across, cubic, compatible, ends, endData, lineError);
     }
 
     /** The source's part along an axis, Q_i, as an expression of that coordinate alone (at t = 0). */
@@ -4317,10 +4548,8 @@ public final class TensorSolver implements SpatialSolver {
                 double[] vb = sumModes(p, o, null, g, r.m(), r.weights());
                 bound += vb[2] + r.gradientBound();
             }
-            for (Face f : faces) {
-                f.add(p, o, budget / (4 * faces.size()), g, bounds);
-                bound += bounds[1];
-            }
+            addFaces(p, o, null, budget / (4 * faces.size()), g, bounds);
+            bound += bounds[1];
             if (hasLag() && slopeNow != 0) {
                 double[] lagged = new double[d];
                 bound += Math.abs(slopeNow) * lagGradient(p, o, lagged);
@@ -4419,10 +4648,8 @@ public final class TensorSolver implements SpatialSolver {
                 value += vb[0];
                 bound += vb[1] + r.bound();
             }
-            for (Face f : faces) {
-                value += f.add(lo, 0, hi, budget / (4 * faces.size()), null, bounds);
-                bound += bounds[0];
-            }
+            value += addFaces(lo, 0, hi, budget / (4 * faces.size()), null, bounds);
+            bound += bounds[0];
             value += levelNow + drift();
             bound += 2 * EPS * Math.abs(levelNow) + driftBound();
             if (hasLag() && slopeNow != 0) {

@@ -165,9 +165,14 @@ class RectangleSideTest {
                 assertWithin(exact.value(q[0], q[1], 0), o.temperature(q, 0.5), limit, "u at " + q[0] + ", " + q[1]);
             }
         }
+        // the corners where two convective sides meet: their data agree there as a smooth solution's do, and the
+        // joint form leaves nothing at the corner
+        for (double[] q : new double[][] {{0, 0}, {1.2, 0}, {1e-4, 0}, {1.2, 1e-5}, {0, 1e-3}, {1.1999, 2e-4}}) {
+            assertWithin(exact.value(q[0], q[1], 0), o.temperature(q, 0.5), limit, "u at the corner " + q[0] + ", " + q[1]);
+        }
         Oracle loose = Oracle.prepare(p, 1, 1e-8);
         double gradientLimit = 1e-8 * loose.temperatureScale() / 0.9;
-        for (double[] q : new double[][] {{0, 0.45}, {1.2, 0.3}, {0.6, 0}, {1.2, 0.8}}) {
+        for (double[] q : new double[][] {{0, 0.45}, {1.2, 0.3}, {0.6, 0}, {1.2, 0.8}, {1e-4, 1e-4}, {1.1999, 2e-4}}) {
             Evaluation[] g = loose.gradient(q, 0.5);
             assertWithin(exact.derivative("x").value(q[0], q[1], 0), g[0], gradientLimit, "du/dx at " + q[0] + ", " + q[1]);
             assertWithin(exact.derivative("y").value(q[0], q[1], 0), g[1], gradientLimit, "du/dy at " + q[0] + ", " + q[1]);

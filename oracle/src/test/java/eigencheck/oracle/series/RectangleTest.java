@@ -215,7 +215,7 @@ class RectangleTest {
     void pointsRepeatedAtSeveralTimesShareTheSteadyPartExactly() {
         // the same manufactured problem as above; the bulk call computes the face series once per distinct
         // point and must give what one point at a time gives, including a point on a Dirichlet
-        // side (answered from the data) and a point too near a side (refused with its own index)
+        // side (answered from the data) and a point outside the body (refused with its own index)
         double k = 1;
         double h = 4;
         double ly = 0.7;
@@ -252,11 +252,11 @@ class RectangleTest {
             assertEquals(alone.bound(), bound[i], 0.01 * alone.bound(), "bound at " + q[0] + ", " + q[1] + ", t = " + t[i]);
             assertWithin(exact.value(q[0], q[1], t[i]), alone, 1e-10 * o.temperatureScale(), "u at point " + i);
         }
-        // a point 1e-7 of the edge from the corner where the held side x = 0 meets the convective y = 0.7, whose
-        // condition its data 1 - y^2 do not meet, cannot be certified: the bulk call names it
+        // a point outside the body is refused: the bulk call names it (points next to the sides and corners of
+        // this field are certified, RectangleSideTest)
         double[] withNear = java.util.Arrays.copyOf(points, 2 * n + 2);
-        withNear[2 * n] = 1e-7;
-        withNear[2 * n + 1] = ly - 1e-7;
+        withNear[2 * n] = 1.001;
+        withNear[2 * n + 1] = 0.3;
         double[] tNear = java.util.Arrays.copyOf(t, n + 1);
         tNear[n] = 0.4;
         OracleException refused = assertThrows(OracleException.class,
