@@ -3710,7 +3710,7 @@ public final class TensorSolver implements SpatialSolver {
                         + SIDES[a][face.side].key() + " and " + e.distance(p, o) + " m from face "
                         + SIDES[e.axis][e.side].key() + ", next to the corner where they meet; the data of "
                         + SIDES[a][face.side].key() + " do not meet the condition of " + SIDES[e.axis][e.side].key()
-                        + " there (the true field's derivatives are singular at that corner), and points this close"
+                        + " there (the true field is not smooth at that corner), and points this close"
                         + " to such a corner are not certified in this version; compare at points farther from it"
                         + " (about 1e-3 of the edge), or give the two sides data that agree at the corner");
                 }
