@@ -170,6 +170,20 @@ class RectangleSideTest {
         for (double[] q : new double[][] {{0, 0}, {1.2, 0}, {1e-4, 0}, {1.2, 1e-5}, {0, 1e-3}, {1.1999, 2e-4}}) {
             assertWithin(exact.value(q[0], q[1], 0), o.temperature(q, 0.5), limit, "u at the corner " + q[0] + ", " + q[1]);
         }
+        // cells touching two convective sides at their corner, and a cell 1e-4 from the held side y = 0.9
+        GaussIntegrator rule = new GaussIntegratorFactory().legendre(20, 0, 1);
+        double[][] cells = {{0, 0, 0.05, 0.04}, {1.15, 0, 1.2, 0.03}, {0.5, 0.85, 0.6, 0.8999}};
+        for (double[] c : cells) {
+            double mean = 0;
+            for (int a = 0; a < 20; a++) {
+                for (int b = 0; b < 20; b++) {
+                    mean += rule.getWeight(a) * rule.getWeight(b) * exact.value(c[0] + (c[2] - c[0]) * rule.getPoint(a),
+                        c[1] + (c[3] - c[1]) * rule.getPoint(b), 0);
+                }
+            }
+            assertWithin(mean, o.cellAverage(new double[] {c[0], c[1]}, new double[] {c[2], c[3]}, 0.5), limit,
+                "cell mean from " + c[0] + ", " + c[1]);
+        }
         Oracle loose = Oracle.prepare(p, 1, 1e-8);
         double gradientLimit = 1e-8 * loose.temperatureScale() / 0.9;
         for (double[] q : new double[][] {{0, 0.45}, {1.2, 0.3}, {0.6, 0}, {1.2, 0.8}, {1e-4, 1e-4}, {1.1999, 2e-4}}) {
