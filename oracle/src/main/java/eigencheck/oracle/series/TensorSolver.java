@@ -3582,7 +3582,9 @@ public final class TensorSolver implements SpatialSolver {
      * the corners, and only points near a side and an end side both are refused. Between two insulated or
      * flux-driven ends no line meets both slopes: l is then the quadratic c + a y + b y^2 with the mean of G
      * (the series has no constant mode there), and L = phi(x) l(y) - 2 b psi(x) with psi'' = phi and B psi = 0
-     * on both sides across, harmonic again. The slab part's error at the ends (its bound in G and G') moves l by
+     * on both sides across, harmonic again. Between two flux sides across no line phi meets both: phi is then
+     * (x - x_far)^2 / (2 k D), psi'' = phi - D/(6 k) with psi' = 0 at both, and L gains chi(y) with
+     * chi'' = -(l/(k D) + D l''/(6 k)). The slab part's error at the ends (its bound in G and G') moves l by
      * a polynomial whose largest value, over h on a convective side, bounds what it does to u (maximum
      * principle, common practice).
      */
@@ -3590,10 +3592,12 @@ public final class TensorSolver implements SpatialSolver {
         private final Face face;
         /** l(y) = line[0] + line[1] y + line[2] y^2 + line[3] y^3. */
         private final double[] line;
-        /** phi(x) = across[0] + across[1] x. */
+        /** phi(x) = sum_j across[j] x^j: a line, or between two insulated faces across a parabola. */
         private final double[] across;
-        /** psi(x) = cubic[0] + cubic[1] x + cubic[2] x^2 + cubic[3] x^3, with psi'' = phi and B psi = 0 across. */
+        /** psi(x) = sum_j cubic[j] x^j, with psi'' = phi (less its mean between two insulated faces) and B psi = 0 across. */
         private final double[] cubic;
+        /** chi(y) = sum_j chi[j] y^j: zero, or between two insulated faces across what keeps L harmonic. */
+        private final double[] chi;
         private final BlendCorrection compatible;
         private final List<Face> ends;
         /** Per end side: the B-form data -B_e L its series takes (cubic coefficients in x), or null. */
@@ -3606,12 +3610,13 @@ public final class TensorSolver implements SpatialSolver {
         private final double[] endBarrier;
         private final double lineError;
 
-        Lifted(Face face, double[] line, double[] across, double[] cubic, BlendCorrection compatible, List<Face> ends,
-               double[][] endData, double lineError) {
+        Lifted(Face face, double[] line, double[] across, double[] cubic, double[] chi, BlendCorrection compatible,
+               List<Face> ends, double[][] endData, double lineError) {
             this.face = face;
             this.line = line;
             this.across = across;
             this.cubic = cubic;
+            this.chi = chi;
             this.compatible = compatible;
             this.ends = ends;
             this.endData = endData;
@@ -3622,7 +3627,7 @@ public final class TensorSolver implements SpatialSolver {
                 double[][] inverse = lineInverse(e.axis);
                 double zeta = inverse == null ? Double.POSITIVE_INFINITY
                     : Math.max(Math.abs(inverse[0][e.side]), Math.abs(inverse[0][e.side] + inverse[1][e.side] * len[e.axis]));
-                endBarrier[i] = zeta * cubicMax(endData[e.side], len[face.axis]);
+                endBarrier[i] = zeta * polynomialMax(endData[e.side], len[face.axis]);
             }
         }
 
@@ -3634,30 +3639,34 @@ public final class TensorSolver implements SpatialSolver {
             double y0 = p[o + t];
             double x1 = hi == null ? x0 : hi[a];
             double y1 = hi == null ? y0 : hi[t];
-            // two-point Gauss means, exact for the cubics here; the point itself when the cell has no width
+            double[] curvature = derivative(derivative(line));
+            // three-point Gauss means, exact for the quintics here; the point itself when the cell has no width
+            double[] node = {-Math.sqrt(0.6) / 2, 0, Math.sqrt(0.6) / 2};
+            double[] weight = {5 / 18.0, 8 / 18.0, 5 / 18.0};
             double ell = 0;
             double curve = 0;
             double phi = 0;
             double psi = 0;
+            double lone = 0;
             double size = 0;
-            for (int q = 0; q < 2; q++) {
-                double shift = (q == 0 ? -0.5 : 0.5) / Math.sqrt(3);
-                double x = 0.5 * (x0 + x1) + shift * (x1 - x0);
-                double y = 0.5 * (y0 + y1) + shift * (y1 - y0);
-                ell += 0.5 * cubicAt(line, y);
-                curve += 0.5 * (2 * line[2] + 6 * line[3] * y);
-                phi += 0.5 * (across[0] + across[1] * x);
-                psi += 0.5 * cubicAt(cubic, x);
-                size += 0.5 * (cubicSize(line, y) * (Math.abs(across[0]) + Math.abs(across[1] * x))
-                    + (2 * Math.abs(line[2]) + 6 * Math.abs(line[3] * y)) * cubicSize(cubic, x));
+            for (int q = 0; q < 3; q++) {
+                double x = 0.5 * (x0 + x1) + node[q] * (x1 - x0);
+                double y = 0.5 * (y0 + y1) + node[q] * (y1 - y0);
+                ell += weight[q] * polynomialAt(line, y);
+                curve += weight[q] * polynomialAt(curvature, y);
+                phi += weight[q] * polynomialAt(across, x);
+                psi += weight[q] * polynomialAt(cubic, x);
+                lone += weight[q] * polynomialAt(chi, y);
+                size += weight[q] * (polynomialSize(line, y) * polynomialSize(across, x)
+                    + polynomialSize(curvature, y) * polynomialSize(cubic, x) + polynomialSize(chi, y));
             }
-            double value = phi * ell - psi * curve;
+            double value = phi * ell - psi * curve + lone;
             double x = x0;
             double y = y0;
-            double dl = line[1] + y * (2 * line[2] + 3 * y * line[3]);
-            double dpsi = cubic[1] + x * (2 * cubic[2] + 3 * x * cubic[3]);
-            double dx = across[1] * cubicAt(line, y) - dpsi * (2 * line[2] + 6 * line[3] * y);
-            double dy = (across[0] + across[1] * x) * dl - cubicAt(cubic, x) * 6 * line[3];
+            double dx = polynomialAt(derivative(across), x) * polynomialAt(line, y)
+                - polynomialAt(derivative(cubic), x) * polynomialAt(curvature, y);
+            double dy = polynomialAt(across, x) * polynomialAt(derivative(line), y)
+                - polynomialAt(cubic, x) * polynomialAt(derivative(curvature), y) + polynomialAt(derivative(chi), y);
             return new double[] {value, dx, dy, size};
         }
 
@@ -3724,10 +3733,17 @@ public final class TensorSolver implements SpatialSolver {
     }
 
     /** sum_j c_j x_axis^j as an expression of that coordinate. */
-    private static Expression cubicOver(double[] c, int axis) {
+    private static Expression polynomialOver(double[] c, int axis) {
         Expression x = Expression.parse(NAMES[axis], NAMES[axis]);
-        return Expression.constant(c[0], NAMES[axis]).linear(1, x, c[1]).linear(1, x.times(x), c[2])
-            .linear(1, x.times(x).times(x), c[3]);
+        Expression sum = Expression.constant(c[0], NAMES[axis]);
+        Expression power = x;
+        for (int j = 1; j < c.length; j++) {
+            if (c[j] != 0) {
+                sum = sum.linear(1, power, c[j]);
+            }
+            power = power.times(x);
+        }
+        return sum;
     }
 
     /**
@@ -3810,12 +3826,12 @@ public final class TensorSolver implements SpatialSolver {
             int other = 1 - first;
             List<Face> joined = new ArrayList<>();
             for (int e = 0; e < 2; e++) {
-                double[] c = new double[4];
+                double[] c = new double[6];
                 boolean any = false;
                 for (Lifted l : lifts) {
                     if (l.endData[e] != null) {
                         any = true;
-                        for (int j = 0; j < 4; j++) {
+                        for (int j = 0; j < l.endData[e].length; j++) {
                             c[j] += l.endData[e][j];
                         }
                     }
@@ -3832,7 +3848,7 @@ public final class TensorSolver implements SpatialSolver {
                     }
                     continue;
                 }
-                Face j = new Face(other, e, null, cubicOver(c, first));
+                Face j = new Face(other, e, null, polynomialOver(c, first));
                 if (j.present) {
                     joined.add(j);
                 }
@@ -3883,35 +3899,56 @@ public final class TensorSolver implements SpatialSolver {
         return value;
     }
 
-    /** max |sum_j c_j x^j| over [0, length]: at the ends and where the slope vanishes. */
-    private static double cubicMax(double[] c, double length) {
-        double max = Math.max(Math.abs(c[0]), Math.abs(cubicAt(c, length)));
-        // roots of c1 + 2 c2 x + 3 c3 x^2
-        double a = 3 * c[3];
-        double b = 2 * c[2];
-        double q = c[1];
-        double[] roots;
-        if (a == 0) {
-            roots = b == 0 ? new double[0] : new double[] {-q / b};
-        } else {
-            double disc = b * b - 4 * a * q;
-            roots = disc < 0 ? new double[0]
-                : new double[] {(-b + Math.sqrt(disc)) / (2 * a), (-b - Math.sqrt(disc)) / (2 * a)};
+    /**
+     * An upper bound of max |sum_j c_j x^j| over [0, length]: the largest of 1025 samples plus half their spacing
+     * times a bound of the slope (sum_j j |c_j| length^(j - 1)).
+     */
+    private static double polynomialMax(double[] c, double length) {
+        double max = 0;
+        for (int i = 0; i <= 1024; i++) {
+            max = Math.max(max, Math.abs(polynomialAt(c, length * i / 1024)));
         }
-        for (double r : roots) {
-            if (r > 0 && r < length) {
-                max = Math.max(max, Math.abs(cubicAt(c, r)));
-            }
+        double slope = 0;
+        for (int j = 1; j < c.length; j++) {
+            slope += j * Math.abs(c[j]) * Math.pow(length, j - 1);
         }
-        return max * (1 + 1e-12);
+        return (max + 0.5 * length / 1024 * slope) * (1 + 1e-12);
     }
 
-    private static double cubicAt(double[] c, double x) {
-        return c[0] + x * (c[1] + x * (c[2] + x * c[3]));
+    private static double polynomialAt(double[] c, double x) {
+        return polynomial(c, x)[0];
     }
 
-    private static double cubicSize(double[] c, double x) {
-        return Math.abs(c[0]) + Math.abs(x * c[1]) + Math.abs(x * x * c[2]) + Math.abs(x * x * x * c[3]);
+    /** sum_j |c_j x^j|, for rounding bounds. */
+    private static double polynomialSize(double[] c, double x) {
+        double size = 0;
+        double power = 1;
+        for (double cj : c) {
+            size += Math.abs(cj * power);
+            power *= x;
+        }
+        return size;
+    }
+
+    /** The coefficients of p'. */
+    private static double[] derivative(double[] c) {
+        if (c.length <= 1) {
+            return new double[] {0};
+        }
+        double[] d = new double[c.length - 1];
+        for (int j = 1; j < c.length; j++) {
+            d[j - 1] = j * c[j];
+        }
+        return d;
+    }
+
+    /** The coefficients of the antiderivative of p that vanishes at 0. */
+    private static double[] integral(double[] c) {
+        double[] d = new double[c.length + 1];
+        for (int j = 0; j < c.length; j++) {
+            d[j + 1] = c[j] / (j + 1);
+        }
+        return d;
     }
 
     /** {c0, c1} of a face condition B u = c0 u + c1 du/dx_axis at that face (c1 carries k and the normal's sign). */
@@ -3972,7 +4009,7 @@ public final class TensorSolver implements SpatialSolver {
             return null;
         }
         double[][] acrossInverse = lineInverse(a);
-        if (acrossInverse == null) {
+        if (acrossInverse == null && !(type[a][0] == NEUMANN && type[a][1] == NEUMANN)) {
             return null;
         }
         double[][] alongInverse = lineInverse(t);
@@ -4062,37 +4099,66 @@ public final class TensorSolver implements SpatialSolver {
             lineBound = 2.5 * (slopeError[0] + slopeError[1]) * lt + Math.max(valueError[0], valueError[1]);
         }
         double lineError = lineBound / (own == ROBIN ? h[a][f.side] : 1);
-        double[] across = {acrossInverse[0][f.side], acrossInverse[1][f.side]};
-        // psi = p x^2 / 2 + q x^3 / 6 + r + s x with B psi = 0 on both sides across
-        double[] cubic = {0, 0, across[0] / 2, across[1] / 6};
-        double[] rhsAcross = {-conditionOf(a, 0, cubic), -conditionOf(a, 1, cubic)};
-        cubic[0] = acrossInverse[0][0] * rhsAcross[0] + acrossInverse[0][1] * rhsAcross[1];
-        cubic[1] = acrossInverse[1][0] * rhsAcross[0] + acrossInverse[1][1] * rhsAcross[1];
+        double[] across;
+        double[] cubic;
+        double[] chi;
+        double depth = len[a];
+        if (acrossInverse != null) {
+            across = new double[] {acrossInverse[0][f.side], acrossInverse[1][f.side]};
+            // psi = p x^2 / 2 + q x^3 / 6 + r + s x with B psi = 0 on both sides across
+            cubic = new double[] {0, 0, across[0] / 2, across[1] / 6};
+            double[] rhsAcross = {-conditionOf(a, 0, cubic), -conditionOf(a, 1, cubic)};
+            cubic[0] = acrossInverse[0][0] * rhsAcross[0] + acrossInverse[0][1] * rhsAcross[1];
+            cubic[1] = acrossInverse[1][0] * rhsAcross[0] + acrossInverse[1][1] * rhsAcross[1];
+            chi = new double[] {0};
+        } else {
+            // both faces across insulated or flux-driven: phi = (x - x_far)^2 / (2 k D) (k phi' = 1 at the side, 0
+            // at the far one), psi'' = phi - D / (6 k) with psi' = 0 at both, and chi'' = -(l / (k D) + D l'' / (6 k)),
+            // so that Laplace (phi l - psi l'' + chi) = 0
+            double far = f.side == 0 ? depth : 0;
+            across = new double[] {far * far / (2 * k * depth), -far / (k * depth), 1 / (2 * k * depth)};
+            double[] level = across.clone();
+            level[0] -= depth / (6 * k);
+            cubic = integral(integral(level));
+            double[] bent = derivative(derivative(line));
+            double[] rest = new double[line.length];
+            for (int j = 0; j < line.length; j++) {
+                rest[j] = -(line[j] / (k * depth) + (j < bent.length ? depth * bent[j] / (6 * k) : 0));
+            }
+            chi = integral(integral(rest));
+        }
         List<Face> ends = new ArrayList<>();
         double[][] endData = new double[2][];
         for (int e = 0; e < 2; e++) {
-            // B_e L = phi(x) B_e l - psi(x) B_e l''; the end side's series takes minus that (over h if convective)
+            // B_e L = phi(x) B_e l - psi(x) B_e l'' + B_e chi; the end side's series takes minus that (over h if
+            // convective)
             double bl = conditionOf(t, e, line);
-            double bc = conditionOf(t, e, new double[] {2 * line[2], 6 * line[3]});
+            double bc = conditionOf(t, e, derivative(derivative(line)));
+            double bchi = conditionOf(t, e, chi);
             double over = type[t][e] == ROBIN ? h[t][e] : 1;
-            double[] c = new double[4];
-            for (int j = 0; j < 4; j++) {
-                c[j] = (-(j < 2 ? bl * across[j] : 0) + bc * cubic[j]) / over;
+            int degree = Math.max(across.length, cubic.length);
+            double[] c = new double[degree];
+            boolean zero = true;
+            for (int j = 0; j < degree; j++) {
+                double phiJ = j < across.length ? across[j] : 0;
+                double psiJ = j < cubic.length ? cubic[j] : 0;
+                c[j] = -(bl * phiJ - bc * psiJ + (j == 0 ? bchi : 0));
+                zero &= c[j] == 0;
             }
-            if (c[0] == 0 && c[1] == 0 && c[2] == 0 && c[3] == 0) {
+            if (zero) {
                 continue;
             }
-            endData[e] = new double[4];
-            for (int j = 0; j < 4; j++) {
-                endData[e][j] = c[j] * over;
+            endData[e] = c.clone();
+            for (int j = 0; j < degree; j++) {
+                c[j] /= over;
             }
-            Face end = new Face(t, e, cubicOver(c, a));
+            Face end = new Face(t, e, polynomialOver(c, a));
             if (end.present) {
                 ends.add(end);
             }
         }
         BlendCorrection compatible = blendCorrection(a, f.side, t, source, -1, tolerance * scale / (8 * faces.size()), null);
-        return new Lifted(f, line, across, cubic, compatible, ends, endData, lineError);
+        return new Lifted(f, line, across, cubic, chi, compatible, ends, endData, lineError);
     }
 
     /** The source's part along an axis, Q_i, as an expression of that coordinate alone (at t = 0). */
