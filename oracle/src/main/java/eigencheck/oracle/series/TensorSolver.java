@@ -2566,13 +2566,42 @@ public final class TensorSolver implements SpatialSolver {
                     }
                 }
             }
+            double valueBound = tail + tb.error * profileSum + 16 * EPS * magnitude;
+            double gradientBound = gTail + tb.error * gradientProfile + 16 * EPS * gradientMagnitude;
+            if (order == 0 && (valueBound > budget || grad != null && gradientBound > gradientBudget)) {
+                // next to the side thousands of modes carry the projection's error: the lifted form, where it
+                // exists and bounds the point more tightly
+                Lifted l = lifted();
+                if (l != null) {
+                    double[] lg = grad == null ? null : new double[d];
+                    double[] lb = new double[2];
+                    double lv = Double.NaN;
+                    try {
+                        lv = l.add(p, o, hi, budget, lg, lb);
+                    } catch (OracleException e) {
+                        if (e.reason() != Reason.TOO_MANY_MODES) {
+                            throw e;
+                        }
+                    }
+                    if (!Double.isNaN(lv) && lb[0] <= valueBound && (grad == null || lb[1] <= gradientBound)) {
+                        if (grad != null) {
+                            for (int i = 0; i < d; i++) {
+                                grad[i] += lg[i];
+                            }
+                        }
+                        bounds[0] = lb[0];
+                        bounds[1] = lb[1];
+                        return lv;
+                    }
+                }
+            }
             if (grad != null) {
                 for (int i = 0; i < d; i++) {
                     grad[i] += gsum[i];
                 }
             }
-            bounds[0] = tail + tb.error * profileSum + 16 * EPS * magnitude;
-            bounds[1] = gTail + tb.error * gradientProfile + 16 * EPS * gradientMagnitude;
+            bounds[0] = valueBound;
+            bounds[1] = gradientBound;
             return value;
         }
 
