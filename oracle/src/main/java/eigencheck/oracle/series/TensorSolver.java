@@ -1295,10 +1295,15 @@ public final class TensorSolver implements SpatialSolver {
 
     /** The mean of an expression of one coordinate over its axis, by a 2048-point Gauss rule. */
     private double meanOf(Expression g, int axis) {
+        return meanAlong(axis, g::value);
+    }
+
+    /** The mean of a function of one coordinate over its axis, by a 2048-point Gauss rule. */
+    private double meanAlong(int axis, java.util.function.DoubleUnaryOperator g) {
         double[][] r = GaussLegendre.onInterval(2048, len[axis]);
         double sum = 0;
         for (int q = 0; q < 2048; q++) {
-            sum += r[1][q] * g.value(r[0][q]);
+            sum += r[1][q] * g.applyAsDouble(r[0][q]);
         }
         return sum / len[axis];
     }
@@ -2265,9 +2270,7 @@ public final class TensorSolver implements SpatialSolver {
             double kap = tb.kappa[index];
             double a = tb.amplitude[index];
             if (kap == 0 && tb.quadratic[index]) {
-                double[] vd = polynomial(order == 1 ? tb.quadraticLag1 : tb.quadraticLag2, s);
-                out[0] = vd[0];
-                out[1] = vd[1];
+                polynomial(order == 1 ? tb.quadraticLag1 : tb.quadraticLag2, s, out);
                 return;
             }
             if (kap == 0) {
@@ -3618,6 +3621,8 @@ public final class TensorSolver implements SpatialSolver {
      * principle, common practice).
      */
     private final class Lifted {
+        private static final double[] MEAN_NODE = {-Math.sqrt(0.6) / 2, 0, Math.sqrt(0.6) / 2};
+        private static final double[] MEAN_WEIGHT = {5 / 18.0, 8 / 18.0, 5 / 18.0};
         private final Face face;
         /** l(y) = line[0] + line[1] y + line[2] y^2 + line[3] y^3. */
         private final double[] line;
@@ -3627,6 +3632,13 @@ public final class TensorSolver implements SpatialSolver {
         private final double[] cubic;
         /** chi(y) = sum_j chi[j] y^j: zero, or between two insulated faces across what keeps L harmonic. */
         private final double[] chi;
+        /** l'', and the derivatives the gradient takes: l', the third derivative of l, phi', psi', chi'. */
+        private final double[] curvature;
+        private final double[] slope;
+        private final double[] curvatureSlope;
+        private final double[] acrossSlope;
+        private final double[] cubicSlope;
+        private final double[] chiSlope;
         private final BlendCorrection compatible;
         private final List<Face> ends;
         /** Per end side: the B-form data -B_e L its series takes (cubic coefficients in x), or null. */
@@ -3646,6 +3658,12 @@ public final class TensorSolver implements SpatialSolver {
             this.across = across;
             this.cubic = cubic;
             this.chi = chi;
+            curvature = derivative(derivative(line));
+            slope = derivative(line);
+            curvatureSlope = derivative(curvature);
+            acrossSlope = derivative(across);
+            cubicSlope = derivative(cubic);
+            chiSlope = derivative(chi);
             this.compatible = compatible;
             this.ends = ends;
             this.endData = endData;
@@ -3668,10 +3686,7 @@ public final class TensorSolver implements SpatialSolver {
             double y0 = p[o + t];
             double x1 = hi == null ? x0 : hi[a];
             double y1 = hi == null ? y0 : hi[t];
-            double[] curvature = derivative(derivative(line));
             // three-point Gauss means, exact for the quintics here; the point itself when the cell has no width
-            double[] node = {-Math.sqrt(0.6) / 2, 0, Math.sqrt(0.6) / 2};
-            double[] weight = {5 / 18.0, 8 / 18.0, 5 / 18.0};
             double ell = 0;
             double curve = 0;
             double phi = 0;
@@ -3679,23 +3694,24 @@ public final class TensorSolver implements SpatialSolver {
             double lone = 0;
             double size = 0;
             for (int q = 0; q < 3; q++) {
-                double x = 0.5 * (x0 + x1) + node[q] * (x1 - x0);
-                double y = 0.5 * (y0 + y1) + node[q] * (y1 - y0);
-                ell += weight[q] * polynomialAt(line, y);
-                curve += weight[q] * polynomialAt(curvature, y);
-                phi += weight[q] * polynomialAt(across, x);
-                psi += weight[q] * polynomialAt(cubic, x);
-                lone += weight[q] * polynomialAt(chi, y);
-                size += weight[q] * (polynomialSize(line, y) * polynomialSize(across, x)
+                double x = 0.5 * (x0 + x1) + MEAN_NODE[q] * (x1 - x0);
+                double y = 0.5 * (y0 + y1) + MEAN_NODE[q] * (y1 - y0);
+                double weight = MEAN_WEIGHT[q];
+                ell += weight * polynomialAt(line, y);
+                curve += weight * polynomialAt(curvature, y);
+                phi += weight * polynomialAt(across, x);
+                psi += weight * polynomialAt(cubic, x);
+                lone += weight * polynomialAt(chi, y);
+                size += weight * (polynomialSize(line, y) * polynomialSize(across, x)
                     + polynomialSize(curvature, y) * polynomialSize(cubic, x) + polynomialSize(chi, y));
             }
             double value = phi * ell - psi * curve + lone;
             double x = x0;
             double y = y0;
-            double dx = polynomialAt(derivative(across), x) * polynomialAt(line, y)
-                - polynomialAt(derivative(cubic), x) * polynomialAt(curvature, y);
-            double dy = polynomialAt(across, x) * polynomialAt(derivative(line), y)
-                - polynomialAt(cubic, x) * polynomialAt(derivative(curvature), y) + polynomialAt(derivative(chi), y);
+            double dx = polynomialAt(acrossSlope, x) * polynomialAt(line, y)
+                - polynomialAt(cubicSlope, x) * polynomialAt(curvature, y);
+            double dy = polynomialAt(across, x) * polynomialAt(slope, y)
+                - polynomialAt(cubic, x) * polynomialAt(curvatureSlope, y) + polynomialAt(chiSlope, y);
             return new double[] {value, dx, dy, size};
         }
 
@@ -3893,7 +3909,7 @@ public final class TensorSolver implements SpatialSolver {
      */
     private double addFaces(double[] p, int o, double[] hi, double budget, double[] grad, double[] bounds) {
         double[] g = grad == null ? null : new double[d];
-        double[] part = new double[2];
+        double[] part = bounds;
         double value = 0;
         double valueBound = 0;
         double gradientBound = 0;
@@ -3945,7 +3961,11 @@ public final class TensorSolver implements SpatialSolver {
     }
 
     private static double polynomialAt(double[] c, double x) {
-        return polynomial(c, x)[0];
+        double v = 0;
+        for (int j = c.length - 1; j >= 0; j--) {
+            v = v * x + c[j];
+        }
+        return v;
     }
 
     /** sum_j |c_j x^j|, for rounding bounds. */
@@ -3993,12 +4013,12 @@ public final class TensorSolver implements SpatialSolver {
     /** B at a face of axis {@code axis} of the polynomial sum_j c_j x^j. */
     private double conditionOf(int axis, int side, double[] c) {
         double[] w = conditionWeights(axis, side);
-        double[] vd = polynomial(c, side == 0 ? 0 : len[axis]);
-        return w[0] * vd[0] + w[1] * vd[1];
+        double x = side == 0 ? 0 : len[axis];
+        return w[0] * polynomialAt(c, x) + w[1] * polynomialAt(derivative(c), x);
     }
 
-    /** {p(x), p'(x)} of p = sum_j c_j x^j, by Horner's scheme. */
-    private static double[] polynomial(double[] c, double x) {
+    /** {p(x), p'(x)} of p = sum_j c_j x^j into out, by Horner's scheme (no allocation: a lag profile's modes). */
+    private static void polynomial(double[] c, double x, double[] out) {
         double value = 0;
         double slope = 0;
         for (int j = c.length - 1; j >= 0; j--) {
@@ -4007,7 +4027,8 @@ public final class TensorSolver implements SpatialSolver {
                 slope = slope * x + j * c[j];
             }
         }
-        return new double[] {value, slope};
+        out[0] = value;
+        out[1] = slope;
     }
 
     /** The inverse of the two faces' conditions on c + c' x along an axis, or null when no line meets both. */
@@ -4122,7 +4143,12 @@ public final class TensorSolver implements SpatialSolver {
         } else {
             // both ends insulated or flux-driven: l' meets G' at both, and l has G's mean
             double b = (dg[1] - dg[0]) / (2 * lt);
-            double mean = meanAlong(f, t);
+            double[] at = new double[d];
+            at[a] = f.side == 0 ? 0 : len[a];
+            double mean = meanAlong(t, y -> {
+                at[t] = y;
+                return f.boundaryData(at);
+            });
             line = new double[] {mean - dg[0] * lt / 2 - b * lt * lt / 3, dg[0], b, 0};
             source = source.linear(1, Expression.constant(1, NAMES[t]), 2 * k * b);
             lineBound = 2.5 * (slopeError[0] + slopeError[1]) * lt + Math.max(valueError[0], valueError[1]);
@@ -4202,18 +4228,6 @@ public final class TensorSolver implements SpatialSolver {
         return q.over(NAMES[axis]);
     }
 
-    /** The mean of a side's data (B-form, less the source part) along it, by a 2048-point Gauss rule. */
-    private double meanAlong(Face f, int t) {
-        double[][] r = GaussLegendre.onInterval(2048, len[t]);
-        double[] point = new double[d];
-        point[f.axis] = f.side == 0 ? 0 : len[f.axis];
-        double sum = 0;
-        for (int q = 0; q < 2048; q++) {
-            point[t] = r[0][q];
-            sum += r[1][q] * f.boundaryData(point);
-        }
-        return sum / len[t];
-    }
 
     private record GradientBox(int[] m, double[] weighted, double bound) {
     }

@@ -30,6 +30,22 @@ class RectangleSideTest {
     private static final double K = 1;
     private static final double H = 2;
 
+    /**
+     * The mean of u over the cell {x0, y0, x1, y1} at t by a 20 x 20 Gauss-Legendre rule (Commons Math; the fields
+     * here are smooth, so to rounding).
+     */
+    private static double gaussMean(Expression u, double[] cell, double t) {
+        GaussIntegrator rule = new GaussIntegratorFactory().legendre(20, 0, 1);
+        double mean = 0;
+        for (int a = 0; a < 20; a++) {
+            for (int b = 0; b < 20; b++) {
+                mean += rule.getWeight(a) * rule.getWeight(b) * u.value(cell[0] + (cell[2] - cell[0]) * rule.getPoint(a),
+                    cell[1] + (cell[3] - cell[1]) * rule.getPoint(b), t);
+            }
+        }
+        return mean;
+    }
+
     /** Unit square, held at 0 on x = 0, insulated on y = 0 and y = 1, convecting (h = 2) to 50 y on x = 1. */
     private static Problem slopingAmbient() {
         Map<Side, BoundaryCondition> faces = new EnumMap<>(Side.class);
@@ -127,17 +143,9 @@ class RectangleSideTest {
             assertWithin(exact.derivative("x").value(q[0], q[1], 0.3), g[0], gradientLimit, "du/dx at " + q[0] + ", " + q[1]);
             assertWithin(exact.derivative("y").value(q[0], q[1], 0.3), g[1], gradientLimit, "du/dy at " + q[0] + ", " + q[1]);
         }
-        GaussIntegrator rule = new GaussIntegratorFactory().legendre(20, 0, 1);
         double[][] cells = {{0.4, 0.6, 0.6, ly}, {0.1, 0, 0.25, 0.05}, {0.45, 0.69, 0.55, ly}};
         for (double[] c : cells) {
-            double mean = 0;
-            for (int a = 0; a < 20; a++) {
-                for (int b = 0; b < 20; b++) {
-                    mean += rule.getWeight(a) * rule.getWeight(b) * exact.value(c[0] + (c[2] - c[0]) * rule.getPoint(a),
-                        c[1] + (c[3] - c[1]) * rule.getPoint(b), 0.2);
-                }
-            }
-            assertWithin(mean, o.cellAverage(new double[] {c[0], c[1]}, new double[] {c[2], c[3]}, 0.2), limit,
+            assertWithin(gaussMean(exact, c, 0.2), o.cellAverage(new double[] {c[0], c[1]}, new double[] {c[2], c[3]}, 0.2), limit,
                 "cell mean from " + c[0] + ", " + c[1]);
         }
     }
@@ -171,17 +179,9 @@ class RectangleSideTest {
             assertWithin(exact.value(q[0], q[1], 0), o.temperature(q, 0.5), limit, "u at the corner " + q[0] + ", " + q[1]);
         }
         // cells touching two convective sides at their corner, and a cell 1e-4 from the held side y = 0.9
-        GaussIntegrator rule = new GaussIntegratorFactory().legendre(20, 0, 1);
         double[][] cells = {{0, 0, 0.05, 0.04}, {1.15, 0, 1.2, 0.03}, {0.5, 0.85, 0.6, 0.8999}};
         for (double[] c : cells) {
-            double mean = 0;
-            for (int a = 0; a < 20; a++) {
-                for (int b = 0; b < 20; b++) {
-                    mean += rule.getWeight(a) * rule.getWeight(b) * exact.value(c[0] + (c[2] - c[0]) * rule.getPoint(a),
-                        c[1] + (c[3] - c[1]) * rule.getPoint(b), 0);
-                }
-            }
-            assertWithin(mean, o.cellAverage(new double[] {c[0], c[1]}, new double[] {c[2], c[3]}, 0.5), limit,
+            assertWithin(gaussMean(exact, c, 0), o.cellAverage(new double[] {c[0], c[1]}, new double[] {c[2], c[3]}, 0.5), limit,
                 "cell mean from " + c[0] + ", " + c[1]);
         }
         Oracle loose = Oracle.prepare(p, 1, 1e-8);
@@ -248,15 +248,7 @@ class RectangleSideTest {
             assertWithin(exact.derivative("x").value(q[0], q[1], 0), g[0], gradientLimit, "du/dx at " + q[0] + ", " + q[1]);
             assertWithin(exact.derivative("y").value(q[0], q[1], 0), g[1], gradientLimit, "du/dy at " + q[0] + ", " + q[1]);
         }
-        GaussIntegrator rule = new GaussIntegratorFactory().legendre(20, 0, 1);
-        double mean = 0;
-        for (int a = 0; a < 20; a++) {
-            for (int b = 0; b < 20; b++) {
-                mean += rule.getWeight(a) * rule.getWeight(b) * exact.value(0.9 + 0.1 * rule.getPoint(a),
-                    0.3 + 0.1 * rule.getPoint(b), 0);
-            }
-        }
-        assertWithin(mean, o.cellAverage(new double[] {0.9, 0.3}, new double[] {1, 0.4}, 0), limit, "cell mean at x = 1");
+        assertWithin(gaussMean(exact, new double[] {0.9, 0.3, 1, 0.4}, 0), o.cellAverage(new double[] {0.9, 0.3}, new double[] {1, 0.4}, 0), limit, "cell mean at x = 1");
     }
     /**
      * A clamp whose temperature varies across its face: u = 20 + 30 y on x = 0, 20 on y = 0 and y = 1, convection
