@@ -102,10 +102,24 @@ final class Calculus {
             return negate(substitute(neg.a, v, value, map));
         }
         if (n instanceof Node.Binary b) {
-            return new Node.Binary(b.op, substitute(b.a, v, value, map), substitute(b.b, v, value, map));
+            return folded(new Node.Binary(b.op, substitute(b.a, v, value, map), substitute(b.b, v, value, map)), v);
         }
         Node.Call c = (Node.Call) n;
-        return new Node.Call(c.f, substitute(c.a, v, value, map), c.b == null ? null : substitute(c.b, v, value, map));
+        return folded(new Node.Call(c.f, substitute(c.a, v, value, map),
+            c.b == null ? null : substitute(c.b, v, value, map)), v);
+    }
+
+    /**
+     * A node whose operands are all constants, as one constant, when a variable was substituted (v >= 0): an
+     * expression at a fixed point of some coordinates then costs what its free part costs.
+     */
+    private static Node folded(Node n, int v) {
+        if (v < 0) {
+            return n;
+        }
+        boolean constant = n instanceof Node.Binary b ? b.a instanceof Node.Constant && b.b instanceof Node.Constant
+            : n instanceof Node.Call c && c.a instanceof Node.Constant && (c.b == null || c.b instanceof Node.Constant);
+        return constant ? new Node.Constant(n.value(new double[0])) : n;
     }
 
     /** Renumbers variables for a new variable list. */

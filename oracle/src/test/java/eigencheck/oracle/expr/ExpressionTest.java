@@ -121,4 +121,18 @@ class ExpressionTest {
         Expression reparsed = Expression.parse(u.derivative("x").formula(), "x", "t");
         assertEquals(2 * 0.7, reparsed.value(0.7, 0.1), 1e-15);
     }
+
+    @Test
+    void substitutionFoldsTheFixedPartIntoConstants() {
+        // a spot's factor along x read off at fixed y and z: the terms of y and z fold to one constant, so the
+        // factor prints without them and keeps the value of the whole (common practice: constant folding)
+        Expression spot = Expression.parse("1000*exp(-((x-0.5)^2+(y-0.4)^2+(z-0.6)^2)/0.02)", "x", "y", "z");
+        Expression f = spot.substitute("y", 0.3).substitute("z", 0.55);
+        assertEquals(1000 * Math.exp(-(0.04 + 0.01 + 0.0025) / 0.02), f.value(0.3), 1e-12);
+        String printed = f.formula();
+        assertTrue(!printed.contains("0.4") && !printed.contains("0.6"), printed);
+        // a call of a constant folds too; a parsed formula is left as written
+        assertEquals(Math.sin(2.0) * 3, Expression.parse("sin(y)*x", "x", "y").substitute("y", 2).value(3), 1e-15);
+        assertTrue(Expression.parse("2*3*x", "x").formula().contains("3"));
+    }
 }
