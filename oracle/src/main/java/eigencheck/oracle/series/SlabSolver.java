@@ -1215,6 +1215,16 @@ public final class SlabSolver {
         return max;
     }
 
+    /**
+     * The relative tolerance of the source's piecewise fit: 1e-15, or 1e-3 of the slab's tolerance up to 1e-13
+     * when that is looser. A source built from derivatives and differences (a box's product factor less its
+     * blend, differentiated) carries rounding noise above 1e-15 of its size, and a fit held to 1e-15 would halve
+     * its panels down to the noise's scale; what the looser fit leaves is measured and joins deltaF.
+     */
+    private double sourceFitTolerance() {
+        return Math.max(1e-15, Math.min(1e-13, 1e-3 * tolerance));
+    }
+
     private PiecewiseFit fitFamily(Expression source, double[] tNodes, double sourceScale, String where) {
         try {
             return PiecewiseFit.fit(new PiecewiseFit.Family() {
@@ -1233,7 +1243,7 @@ public final class SlabSolver {
                         out[m] = source.value(arg);
                     }
                 }
-            }, 0, length, sourceScale, 1e-15, 1e-13 * length);
+            }, 0, length, sourceScale, sourceFitTolerance(), 1e-13 * length);
         } catch (PiecewiseFit.NonFiniteException e) {
             throw new OracleException(Reason.DATA_NOT_FINITE, where + ": \"" + source.source() + "\" is " + e.value
                 + " at x = " + e.x + "; give a source finite on the slab");
