@@ -77,6 +77,15 @@ final class SourceRemainder {
      * @param hOverK per axis and side: h/k of a convective side, 0 of a flux side, infinity of a Dirichlet one
      */
     SourceRemainder(Expression q, double[] len, double[][] hOverK) {
+        this(q, len, hOverK, null);
+    }
+
+    /**
+     * As {@link #SourceRemainder(Expression, double[], double[][])} for a source the caller has checked to be
+     * one product Q = f(x) g(y) ({@code factors} = {f over x, g over y}), or null.
+     */
+    SourceRemainder(Expression q, double[] len, double[][] hOverK, Expression[] factors) {
+        this.factors = factors == null ? null : factors.clone();
         this.len = len.clone();
         this.hOverK = new double[2][2];
         this.dirichlet = new boolean[2][2];
@@ -120,8 +129,37 @@ final class SourceRemainder {
         mixed = mixedSeminorms();
     }
 
+    /** Q as f(x) g(y), when it is one product (the partials then come from two 1D expansions), or null. */
+    private final Expression[] factors;
+
+    /** The factors' derivatives 0..4 by coordinate (the tables revisit each grid line many times). */
+    @SuppressWarnings("unchecked")
+    private final java.util.Map<Double, double[]>[] factorCache = new java.util.Map[] {
+        new java.util.concurrent.ConcurrentHashMap<Double, double[]>(),
+        new java.util.concurrent.ConcurrentHashMap<Double, double[]>()};
+
+    private static double[] expansion(Expression f, double at) {
+        DerivativeStructure v = f.value(new DerivativeStructure(1, ORDER, 0, at));
+        double[] out = new double[ORDER + 1];
+        for (int o = 0; o <= ORDER; o++) {
+            out[o] = v.getPartialDerivative(o);
+        }
+        return out;
+    }
+
     /** d^(a+b) Q / dx^a dy^b at (x, y) for a, b <= 4, by forward automatic differentiation of order 8. */
     private double[][] partials(double x, double y) {
+        if (factors != null) {
+            double[] fx = factorCache[0].computeIfAbsent(x, v -> expansion(factors[0], v));
+            double[] gy = factorCache[1].computeIfAbsent(y, v -> expansion(factors[1], v));
+            double[][] out = new double[ORDER + 1][ORDER + 1];
+            for (int a = 0; a <= ORDER; a++) {
+                for (int b = 0; b <= ORDER; b++) {
+                    out[a][b] = fx[a] * gy[b];
+                }
+            }
+            return out;
+        }
         DerivativeStructure dx = new DerivativeStructure(2, 2 * ORDER, 0, x);
         DerivativeStructure dy = new DerivativeStructure(2, 2 * ORDER, 1, y);
         DerivativeStructure v = source.value(dx, dy);

@@ -52,7 +52,8 @@ import java.util.Map;
  * terms theta(t) phi(s) ({@link SideSchedule}), each adding theta H + theta' Pi_1 / alpha + theta'' Pi_2 /
  * alpha^2 with H the face series of phi and Pi_1, Pi_2 its lags by the resonant profiles
  * ({@link Face#lagProfile}), and particular modes driven by theta''' ({@link #addScheduled}). This version
- * takes a source varying along one axis at most, a sum of such terms, or in a rectangle any smooth
+ * takes a source varying along one axis at most, a sum of such terms, in a box a sum of terms of two
+ * coordinates ({@link #addPairTerms}) or one product F(x) G(y) H(z) ({@link ProductSource}), or in a rectangle any smooth
  * source: then the blend's parts psi(x) beta(y) replace P and the remainder
  * \(W = \sum Q_{r,J} X_J / (k \lambda_J)\) joins the steady part ({@link SourceRemainder},
  * {@link #addBlends}, {@link #remainderSeries}). With every face insulated or
@@ -132,6 +133,11 @@ public final class TensorSolver implements SpatialSolver {
     private double pairDataError;
     /** The terms theta(t) phi(x) of a source that changes in time other than uniformly. */
     private final List<SourceSchedule> sourceTerms = new ArrayList<>();
+    /** A box source's part that couples x, y and z, as one product of factors (null otherwise). */
+    private ProductSource productPart;
+    /** Its steady series W_J = a_i b_j c_k / (k lambda_J) for values and for gradients. */
+    private RemainderSeries productValues;
+    private RemainderSeries productGradients;
     /** The remainder's steady series W_J = Q_r,J / (k lambda_J) on boxes for values and for gradients. */
     private RemainderSeries remainderValues;
     private RemainderSeries remainderGradients;
@@ -140,9 +146,24 @@ public final class TensorSolver implements SpatialSolver {
      * One pair term of a box's source: its axes a < b, the third axis c, T_ab over (x_a, x_b), V's slice
      * (answers with their bounds, not refused) and the error V vouches for at any point it serves.
      */
-    private record PairTerm(int a, int b, int c, Expression source, Slice slice, double error) {
+    private record PairTerm(int a, int b, int c, Expression source, Slice slice, double error, double w0, double w1) {
+        /** A term constant along its third axis (w = 1). */
+        PairTerm(int a, int b, int c, Expression source, Slice slice, double error) {
+            this(a, b, c, source, slice, error, 1, 0);
+        }
+
         Evaluation at(double xa, double xb) {
             return slice.temperature(new double[] {xa, xb}, 0);
+        }
+
+        /** The linear factor along the third axis, w = w0 + w1 x_c (1 for a term constant along it). */
+        double w(double xc) {
+            return w0 + w1 * xc;
+        }
+
+        /** The mean of w over [lo, hi]. */
+        double wMean(double lo, double hi) {
+            return w0 + w1 * 0.5 * (lo + hi);
         }
     }
 
@@ -324,14 +345,41 @@ public final class TensorSolver implements SpatialSolver {
             } else if (d == 3 && !allFlux) {
                 double[] triple = tripleDifference(q);
                 if (!(triple[0] <= 1e-12 * Math.max(1, triple[1]))) {
-                    throw notAdditive(along);
+                    // a source coupling x, y and z as one product F(x) G(y) H(z): its own parts, and nothing left
+                    double[] residual = new double[1];
+                    // the whole source when it is one product (a spot heater)
+                    productPart = productOf(q, residual);
+                    if (productPart == null) {
+                        throw new OracleException(Reason.UNSUPPORTED, "source: varies with x, y and z together and is"
+                            + " not one product F(x) G(y) H(z) (the nearest differs by " + residual[0] + " W/m^3) nor"
+                            + " a sum of terms of two coordinates each; this version solves boxes whose source is one"
+                            + " of those (a spot heater A exp(-((x - a)^2 + (y - b)^2 + (z - c)^2) / w^2), a heater"
+                            + " line along an axis), and a rectangle takes any smooth source; for a general source use"
+                            + " a manufactured solution");
+                    }
+                    q = Expression.constant(0, q.variables().toArray(String[]::new));
+                    variation += 2 * residual[0] * lengthScale * lengthScale / k;
+                    triple = tripleDifference(q);
+                    for (java.util.Iterator<Integer> it = along.iterator(); it.hasNext(); ) {
+                        double change = variationAlong(q, it.next());
+                        if (Double.isFinite(change)) {
+                            variation += 2 * change * lengthScale * lengthScale / k;
+                            it.remove();
+                        }
+                    }
                 }
-                double[] left = addPairTerms(problem, q, along);
-                variation += 2 * (triple[0] + left[0]) * lengthScale * lengthScale / k;
-                // the first pair term holds the constant and its axes' own terms: a slab remains along its
-                // third axis alone
-                int third = (int) left[1];
-                along.removeIf(i -> i != third);
+                double[] pairMixed = along.size() > 1 ? mixedDifference(q, along) : new double[] {0, 0};
+                if (productPart != null && pairMixed[0] <= 1e-12 * Math.max(1, pairMixed[1])) {
+                    // the rest is additive: a slab along each axis it varies on
+                    variation += 2 * (triple[0] + pairMixed[0]) * lengthScale * lengthScale / k;
+                } else {
+                    double[] left = addPairTerms(problem, q, along);
+                    variation += 2 * (triple[0] + left[0]) * lengthScale * lengthScale / k;
+                    // the first pair term holds the constant and its axes' own terms: a slab remains along its
+                    // third axis alone
+                    int third = (int) left[1];
+                    along.removeIf(i -> i != third);
+                }
             } else {
                 throw notAdditive(along);
             }
@@ -356,7 +404,7 @@ public final class TensorSolver implements SpatialSolver {
         this.sourceSlices = new SlabSolver.Slice[d];
         this.sourceParts = new Expression[d];
         if (remainder != null) {
-            addBlends(problem.material());
+            variation += addBlends(problem.material(), sourceSize(q));
             buildRemainderSeries();
         } else if (!zeroSource && !along.isEmpty()) {
             for (int i : along) {
@@ -373,6 +421,9 @@ public final class TensorSolver implements SpatialSolver {
                 sourceParts[i] = slab.source();
                 sourceSlices[i] = new SlabSolver(slab, 0, tolerance / (8 * along.size())).at(0);
             }
+        }
+        if (productPart != null) {
+            addProductParts(problem.material());
         }
         this.timeVariation = variation;
         this.shift = shiftOf();
@@ -1038,7 +1089,7 @@ public final class TensorSolver implements SpatialSolver {
             if (b != 1) {
                 rect = rect.renamed(NAMES[b], "y");
             }
-            double subTolerance = Math.max(1e-15, tolerance / (32 * coupled.size()));
+            double subTolerance = pairTolerance(rect, a, b, coupled.size());
             TensorSolver v;
             try {
                 v = new TensorSolver(pairProblem(rect, a, b, problem.material()), 0, subTolerance, true);
@@ -1050,11 +1101,194 @@ public final class TensorSolver implements SpatialSolver {
             PairTerm term = new PairTerm(a, b, c, t, v.at(Double.POSITIVE_INFINITY), subTolerance * v.scale());
             pairs.add(term);
             if (carriesData(term)) {
-                pairDataError += term.error();
+                pairDataError += term.error() * pairDataWeight(term);
             }
         }
         int[] first = coupled.get(0);
         return new double[] {left, 3 - first[0] - first[1]};
+    }
+
+    /**
+     * A box's source as one product F(x) G(y) H(z), read off at the point p0 where |Q| is largest among 4096
+     * scanned points (and the source's peak): F = Q(x, y0, z0), G = Q(x0, y, z0) / Q(p0), H likewise. Taken when
+     * Q - F G H stays within 1e-11 of max |Q| at every scanned point; the largest difference goes to
+     * residual[0] (the caller adds twice its effect to the bound); null otherwise.
+     */
+    private ProductSource productOf(Expression coupling, double[] residual) {
+        Expression e = coupling.variables().contains("t") ? coupling.substitute("t", 0) : coupling;
+        e = e.over("x", "y", "z");
+        if (e.mayBeNonSmooth()) {
+            throw new OracleException(Reason.UNSUPPORTED, "source: varies with x, y and z together and may be"
+                + " non-smooth (abs, min, max or a step); this version takes such a box source when it is smooth:"
+                + " write it without them, or use a manufactured solution");
+        }
+        Expression[] factors = productFactors(e, 4096, 1e-11, residual);
+        if (factors == null) {
+            return null;
+        }
+        double[][] hOverK = new double[3][2];
+        for (int i = 0; i < 3; i++) {
+            for (int s = 0; s < 2; s++) {
+                hOverK[i][s] = type[i][s] == DIRICHLET ? Double.POSITIVE_INFINITY : type[i][s] == NEUMANN ? 0
+                    : h[i][s] / k;
+            }
+        }
+        return new ProductSource(factors, axes, len, hOverK);
+    }
+
+    /**
+     * The product's parts ({@link ProductSource}): for each end e of a blended axis c, the pair term
+     * psi_e(x_c) V(x_a, x_b), V from a rectangle solver of its own under a's and b's homogeneous conditions with
+     * source B_e f_c times the other two factors (less their blends on the axes before c); then the steady series
+     * of F_r G_r H_r.
+     */
+    private void addProductParts(Material material) {
+        ProductSource ps = productPart;
+        int terms = 0;
+        for (int c = 0; c < 3; c++) {
+            for (int e = 0; e < 2 && ps.blended(c); e++) {
+                terms += ps.endData(c, e) != 0 ? 1 : 0;
+            }
+        }
+        for (int c = 0; c < 3; c++) {
+            if (!ps.blended(c)) {
+                continue;
+            }
+            int a = c == 0 ? 1 : 0;
+            int b = c == 2 ? 1 : 2;
+            Expression fa = (a < c ? ps.rest(a) : ps.factor(a)).renamed(NAMES[a], "x").over("x", "y");
+            Expression fb = (b < c ? ps.rest(b) : ps.factor(b)).renamed(NAMES[b], "y").over("x", "y");
+            for (int e = 0; e < 2; e++) {
+                double data = ps.endData(c, e);
+                if (data == 0) {
+                    continue;
+                }
+                Expression rect = fa.times(fb);
+                rect = rect.linear(data, rect, 0);
+                String which = NAMES[a] + " and " + NAMES[b];
+                double subTolerance = pairTolerance(rect, a, b, terms);
+                TensorSolver v;
+                try {
+                    v = new TensorSolver(pairProblem(rect, a, b, material), 0, subTolerance, true);
+                } catch (OracleException x) {
+                    throw new OracleException(x.reason(), "source: its part that couples x, y and z is blended at "
+                        + "boundary." + SIDES[c][e].key() + ", and what that leaves along " + which + " is solved"
+                        + " on the " + NAMES[a] + "-" + NAMES[b] + " rectangle (read there as x and y), which"
+                        + " answered: " + x.getMessage());
+                }
+                double[] w = ps.weight(c, e);
+                PairTerm term = new PairTerm(a, b, c, rect, v.at(Double.POSITIVE_INFINITY), subTolerance * v.scale(),
+                    w[0], w[1]);
+                pairs.add(term);
+                if (carriesData(term)) {
+                    pairDataError += term.error() * pairDataWeight(term);
+                }
+            }
+        }
+        productValues = productSeries(false);
+        if (!(productValues.bound() <= tolerance * scale / 16)) {
+            throw new OracleException(Reason.TOO_MANY_MODES, "source: its part that couples x, y and z needs more"
+                + " than " + PRODUCT_CAP + " modes per axis at tolerance " + tolerance + " (what they leave is bounded"
+                + " by " + productValues.bound() + " K, the budget is " + tolerance * scale / 16 + " K); loosen the"
+                + " tolerance, or widen the source");
+        }
+    }
+
+    /**
+     * The tolerance of a pair term's rectangle, one of n: tolerance / (32 n) of its own scale, or looser (to
+     * 1e-4) when its source is small beside this body's, so that its error is tolerance * scale / (32 n) of
+     * this body's scale (the rectangle's scale estimated as max |T| L^2 / k on a 65 x 65 grid, times 2).
+     */
+    private double pairTolerance(Expression rect, int a, int b, int n) {
+        double own = Math.max(1e-15, tolerance / (32 * n));
+        double size = 0;
+        for (int i = 0; i <= 64; i++) {
+            for (int j = 0; j <= 64; j++) {
+                size = Math.max(size, Math.abs(rect.value(len[a] * i / 64, len[b] * j / 64)));
+            }
+        }
+        double l = Math.max(len[a], len[b]);
+        double estimate = 2 * size * l * l / k;
+        if (!(estimate > 0)) {
+            return own;
+        }
+        return Math.max(own, Math.min(1e-4, tolerance * scale / (32 * n * estimate)));
+    }
+
+    /** The most modes per axis of the product's series (a table of 128^3 weights, 16 MB). */
+    private static final int PRODUCT_CAP = 128;
+    /** The factors' coefficients computed for the tails of that series. */
+    private static final int PRODUCT_TAIL = 2048;
+
+    /**
+     * W_J = a_i b_j c_k / (k lambda_J) on the smallest table (8 to 128 modes per axis, doubling, each axis on its
+     * own) whose left-out entries stay within a quarter of tolerance * scale / 16 per axis (over the length scale
+     * for gradients). What the table leaves out has i >= n_x, j >= n_y or k >= n_z; with lambda >= mu_i^2 the
+     * first is at most sum_{i >= n_x} |a_i| / mu_i^2 sum |b| sum |c| / k, and for gradients (|dX/dx| <= mu,
+     * mu_i / lambda <= 1 / mu_i and mu_p / lambda <= 1 / (2 mu_i) for another axis p) twice sum |a_i| / mu_i,
+     * summed over the three components. Projection errors e_i per coefficient add
+     * e_x n_x sum |b| sum |c| / (k lambda_min) and likewise.
+     */
+    private RemainderSeries productSeries(boolean forGradients) {
+        ProductSource ps = productPart;
+        // the factors' coefficients are cheap: 2048 of each make the tails' integration-by-parts part negligible
+        ps.ensure(PRODUCT_TAIL);
+        double budget = tolerance * scale / 16 / (forGradients ? lengthScale : 1);
+        double[] total = new double[3];
+        for (int i = 0; i < 3; i++) {
+            total[i] = ps.total(i);
+        }
+        int[] n = new int[3];
+        double valueTail = 0;
+        double gradientTail = 0;
+        for (int i = 0; i < 3; i++) {
+            double others = total[(i + 1) % 3] * total[(i + 2) % 3] / k;
+            for (int size = 8; ; size *= 2) {
+                double vt = ps.tail(i, size, 2) * others;
+                double gt = 2 * ps.tail(i, size, 1) * others;
+                if ((forGradients ? gt : vt) <= budget / 4 || size >= PRODUCT_CAP) {
+                    n[i] = size;
+                    valueTail += vt;
+                    gradientTail += gt;
+                    break;
+                }
+            }
+        }
+        double lambdaMin = 0;
+        double muSum = 0;
+        for (int i = 0; i < 3; i++) {
+            lambdaMin += axes[i].mu[0] * axes[i].mu[0];
+            muSum += axes[i].mu[n[i] - 1];
+        }
+        double projection = 0;
+        for (int i = 0; i < 3; i++) {
+            projection += ps.projectionError(i) * n[i] * total[(i + 1) % 3] * total[(i + 2) % 3];
+        }
+        projection /= k * lambdaMin;
+        double[] w = new double[n[0] * n[1] * n[2]];
+        for (int i = 0; i < n[0]; i++) {
+            double mu = axes[0].mu[i];
+            double ai = ps.coefficient(0, i);
+            for (int j = 0; j < n[1]; j++) {
+                double nu = axes[1].mu[j];
+                double aij = ai * ps.coefficient(1, j);
+                int row = (i * n[1] + j) * n[2];
+                for (int l = 0; l < n[2]; l++) {
+                    double xi = axes[2].mu[l];
+                    w[row + l] = aij * ps.coefficient(2, l) / (k * (mu * mu + nu * nu + xi * xi));
+                }
+            }
+        }
+        return new RemainderSeries(PRODUCT_CAP, n, w, valueTail + projection, gradientTail + projection * muSum);
+    }
+
+    /** The product's series for gradients, on the first request: the value table when its gradient bound serves. */
+    private synchronized RemainderSeries productGradients() {
+        if (productGradients == null) {
+            double budget = tolerance * scale / (16 * lengthScale);
+            productGradients = productValues.gradientBound() <= budget ? productValues : productSeries(true);
+        }
+        return productGradients;
     }
 
     /** The steady rectangle of axes a, b (as x, y) under their homogeneous conditions, with source T_ab. */
@@ -1113,7 +1347,68 @@ public final class TensorSolver implements SpatialSolver {
                     : h[i][s] / k;
             }
         }
-        return new SourceRemainder(qxy.over("x", "y"), len, hOverK);
+        Expression over = qxy.over("x", "y");
+        return new SourceRemainder(over, len, hOverK, rectangleProduct(over));
+    }
+
+    /**
+     * A rectangle's source as one product f(x) g(y) (a box's pair term of a spot, say), read off at the largest
+     * of 1024 scanned points and taken when it matches every one to 1e-13 of that peak (the remainder's
+     * derivative tables then take two 1D expansions per point instead of one in 2D); null otherwise.
+     */
+    private Expression[] rectangleProduct(Expression q) {
+        return productFactors(q, 1024, 1e-13, new double[1]);
+    }
+
+    /**
+     * A source over (x, y[, z]) as one product of a factor per coordinate, read off at the point p0 where |Q| is
+     * largest among {@code count} points of a Kronecker sequence (plastic-number steps, which fill the body
+     * evenly) and the source's peak: the factor of axis i is Q with the other coordinates at p0, divided by
+     * Q(p0) for i > 0. Taken when the product matches Q at every scanned point to {@code relative} of |Q(p0)|;
+     * the largest difference goes to residual[0]. Null otherwise.
+     */
+    private Expression[] productFactors(Expression q, int count, double relative, double[] residual) {
+        double g = d == 3 ? 1.2207440846057596 : 1.324717957244746;
+        double[][] points = new double[count + 1][d];
+        double peak = -1;
+        int best = 0;
+        for (int c = 0; c <= count; c++) {
+            for (int i = 0; i < d; i++) {
+                double u = c == count ? (sourcePeak == null ? 0.5 : sourcePeak[i] / len[i])
+                    : (0.5 + c * Math.pow(g, -(i + 1))) % 1;
+                points[c][i] = len[i] * u;
+            }
+            double v = Math.abs(q.value(points[c]));
+            if (v > peak) {
+                peak = v;
+                best = c;
+            }
+        }
+        double[] p0 = points[best];
+        double c0 = q.value(p0);
+        if (!(Math.abs(c0) > 0 && Double.isFinite(c0))) {
+            return null;
+        }
+        Expression[] factors = new Expression[d];
+        for (int i = 0; i < d; i++) {
+            Expression f = q;
+            for (int j = 0; j < d; j++) {
+                if (j != i) {
+                    f = f.substitute(NAMES[j], p0[j]);
+                }
+            }
+            factors[i] = i == 0 ? f : f.linear(1 / c0, f, 0);
+        }
+        double worst = 0;
+        for (double[] p : points) {
+            double product = 1;
+            for (int i = 0; i < d; i++) {
+                product *= factors[i].value(p[i]);
+            }
+            worst = Math.max(worst, Math.abs(q.value(p) - product));
+        }
+        residual[0] = worst;
+        return worst <= relative * Math.abs(c0) ? factors : null;
     }
 
     /**
@@ -1233,8 +1528,11 @@ public final class TensorSolver implements SpatialSolver {
      * The blend's parts, one per end of a blended axis: for an end e of x, psi_e(x) times the y slab of
      * G_e(y) = B_e Q(x_e, y) less its own blend in y, sum_r phi_r(y) B_r B_e Q(x_e, y_r) (so that the parts
      * sum to S = P_x (I - P_y) Q + P_y Q); for an end r of y, phi_r(y) times the x slab of B_r Q(x, y_r).
+     * A part that is rounding noise beside the source (within 1e-13 of its sampled size) is left out; returns
+     * the bound of what that moves u by.
      */
-    private void addBlends(Material material) {
+    private double addBlends(Material material, double sourceSize) {
+        double skipped = 0;
         int terms = 0;
         for (int axis = 0; axis < 2; axis++) {
             terms += remainder.blended(axis) ? 2 : 0;
@@ -1270,6 +1568,18 @@ public final class TensorSolver implements SpatialSolver {
                     }
                 }
                 double[] w = remainder.weight(axis, side);
+                double psiMax = Math.max(Math.abs(w[0]), Math.abs(w[0] + w[1] * len[axis]));
+                double gMax = 0;
+                for (int q = 0; q <= 64; q++) {
+                    gMax = Math.max(gMax, Math.abs(g.value(len[along] * q / 64)));
+                }
+                if (psiMax * gMax <= 1e-13 * sourceSize) {
+                    // rounding noise of a source that meets this side's condition (a box's product factor less
+                    // its blend): a slab fitted to it would chase the noise; leaving it out moves u by no more
+                    // than its size times L^2 / k, twice that taken (as for a source that is noise)
+                    skipped += 2 * psiMax * gMax * lengthScale * lengthScale / k;
+                    continue;
+                }
                 double factor = type[axis][side] == DIRICHLET ? 1 : side == 0 ? -k : k;
                 double budget = tolerance * scale / (16 * terms);
                 if (axes[along].zero) {
@@ -1291,6 +1601,7 @@ public final class TensorSolver implements SpatialSolver {
                     blendCorrection(axis, side, along, g, factor, budget, null)));
             }
         }
+        return skipped;
     }
 
     /** The mean of an expression of one coordinate over its axis, by a 2048-point Gauss rule. */
@@ -2705,9 +3016,52 @@ public final class TensorSolver implements SpatialSolver {
         return m;
     }
 
-    /** Whether a pair term puts data on a face across its third axis (one of them holds or convects). */
+    /** Whether a pair term puts data on a face across its third axis. */
     private boolean carriesData(PairTerm t) {
-        return type[t.c()][0] != NEUMANN || type[t.c()][1] != NEUMANN;
+        return pairFaceFactor(t, 0) != 0 || pairFaceFactor(t, 1) != 0;
+    }
+
+    /**
+     * B-form of a pair term's factor w on a face across its third axis: w on a Dirichlet face, k dw/dn on a
+     * flux face, k dw/dn + h w on a convective one (n the outward normal); the term leaves that times V there.
+     */
+    private double pairFaceFactor(PairTerm t, int side) {
+        int c = t.c();
+        double w = t.w(side == 0 ? 0 : len[c]);
+        double outward = side == 0 ? -t.w1() : t.w1();
+        return switch (type[c][side]) {
+            case DIRICHLET -> w;
+            case NEUMANN -> k * outward;
+            default -> k * outward + h[c][side] * w;
+        };
+    }
+
+    /**
+     * How far a pair term's face data move the temperature per kelvin of V's error: by the maximum principle
+     * |factor| on a Dirichlet face and |factor| / h on a convective one, the largest of those; a flux face adds
+     * |factor| (D / k + 1 / h_far), D the depth and h_far the far face's (infinite when held), by the comparison
+     * function (G / k)(D - s) + G / h_far, which is harmonic and meets or exceeds the data on every face.
+     */
+    private double pairDataWeight(PairTerm t) {
+        int c = t.c();
+        double held = 0;
+        double flux = 0;
+        for (int s = 0; s < 2; s++) {
+            double f = Math.abs(pairFaceFactor(t, s));
+            if (f == 0) {
+                continue;
+            }
+            if (type[c][s] == DIRICHLET) {
+                held = Math.max(held, f);
+            } else if (type[c][s] == ROBIN) {
+                held = Math.max(held, f / h[c][s]);
+            } else {
+                int far = 1 - s;
+                flux += f * (len[c] / k + (type[c][far] == ROBIN ? 1 / h[c][far] : type[c][far] == DIRICHLET ? 0
+                    : Double.POSITIVE_INFINITY));
+            }
+        }
+        return held + flux;
     }
 
     /**
@@ -2728,13 +3082,13 @@ public final class TensorSolver implements SpatialSolver {
             double r = Double.POSITIVE_INFINITY;
             for (int i = 0; i < d; i++) {
                 for (int s = 0; s < 2; s++) {
-                    boolean dataFace = i == t.c() && type[i][s] != NEUMANN;
+                    boolean dataFace = i == t.c() && pairFaceFactor(t, s) != 0;
                     if (dataFace || type[i][s] == ROBIN) {
                         r = Math.min(r, s == 0 ? p[o + i] : len[i] - p[o + i]);
                     }
                 }
             }
-            total += 3 * t.error() / r;
+            total += 3 * t.error() * pairDataWeight(t) / r;
         }
         return total;
     }
@@ -2745,31 +3099,32 @@ public final class TensorSolver implements SpatialSolver {
      * null, a larger (finite) bound is allowed and what it exceeds the share by, in B_f, is added to excess[0].
      */
     private double sourcePart(int axis, int side, double[] point, double[] excess) {
-        if (type[axis][side] == NEUMANN) {
-            return 0;
-        }
         double p = 0;
-        for (int i = 0; i < d; i++) {
-            if (i != axis && sourceSlices[i] != null) {
-                p += sourceSlices[i].temperature(point[i]).value();
+        if (type[axis][side] != NEUMANN) {
+            for (int i = 0; i < d; i++) {
+                if (i != axis && sourceSlices[i] != null) {
+                    p += sourceSlices[i].temperature(point[i]).value();
+                }
             }
         }
+        p *= type[axis][side] == ROBIN ? h[axis][side] : 1;
         for (PairTerm t : pairs) {
-            if (t.c() == axis) {
-                // V vanishes (in B) on the faces across its own axes; across the third it is data
+            double factor = t.c() == axis ? pairFaceFactor(t, side) : 0;
+            if (factor != 0) {
+                // V vanishes (in B) on the faces across its own axes; across the third w V is data
                 Evaluation e = t.at(point[t.a()], point[t.b()]);
                 if (excess != null && e.bound() > t.error() && Double.isFinite(e.bound())) {
-                    excess[0] += (type[axis][side] == ROBIN ? h[axis][side] : 1) * (e.bound() - t.error());
+                    excess[0] += Math.abs(factor) * (e.bound() - t.error());
                 } else if (!(e.bound() <= t.error())) {
                     throw new OracleException(Reason.TOO_MANY_MODES, "source: its part that varies with "
                         + NAMES[t.a()] + " and " + NAMES[t.b()] + " together is not certified to " + t.error()
                         + " K at (" + point[t.a()] + ", " + point[t.b()] + ") on boundary." + SIDES[axis][side].key()
                         + " (bound " + e.bound() + " K); loosen the tolerance or smooth the source");
                 }
-                p += e.value();
+                p += factor * e.value();
             }
         }
-        return type[axis][side] == ROBIN ? h[axis][side] * p : p;
+        return p;
     }
 
     // ---------------------------------------------------------------- the transient
@@ -2839,7 +3194,7 @@ public final class TensorSolver implements SpatialSolver {
                 }
                 double[] ones = new double[m[cc]];
                 for (int j = 0; j < m[cc]; j++) {
-                    ones[j] = axes[cc].integral(j) / axes[cc].norm[j];
+                    ones[j] = (term.w0() * axes[cc].integral(j) + term.w1() * axes[cc].firstMoment(j)) / axes[cc].norm[j];
                 }
                 double weightMax = 0;
                 int[] index = new int[d];
@@ -2853,7 +3208,10 @@ public final class TensorSolver implements SpatialSolver {
                 }
                 err += gt[1][0] * weightMax;
                 double lambdaMin = axes[a].mu[0] * axes[a].mu[0] + axes[b].mu[0] * axes[b].mu[0];
-                uNorm += 1.01 * gt[1][1] * Math.sqrt(len[cc]) / (k * lambdaMin);
+                double lc = len[cc];
+                double wNorm = Math.sqrt(lc * (term.w0() * term.w0() + term.w0() * term.w1() * lc
+                    + term.w1() * term.w1() * lc * lc / 3));
+                uNorm += 1.01 * gt[1][1] * wNorm / (k * lambdaMin);
             }
             for (Blend b : blends) {
                 // psi_j beta_n: psi's projection on the modes of its axis, beta_n = G_n / (k nu_n^2) exactly
@@ -2928,6 +3286,40 @@ public final class TensorSolver implements SpatialSolver {
                 err += qr[1][0] * weightMax;
                 double lambdaMin = axes[0].mu[0] * axes[0].mu[0] + axes[1].mu[0] * axes[1].mu[0];
                 uNorm += 1.01 * qr[1][1] / (k * lambdaMin);
+            }
+            if (productPart != null) {
+                // W_J = a_i b_j c_k / (k lambda_J) exactly, and ||W|| <= ||F_r|| ||G_r|| ||H_r|| / (k lambda_min)
+                ProductSource ps = productPart;
+                int most = Math.max(m[0], Math.max(m[1], m[2]));
+                ps.ensure(Math.max(most, ps.computed()));
+                double[] sizes = new double[3];
+                double coefficientError = 0;
+                for (int i = 0; i < 3; i++) {
+                    for (int j = 0; j < m[i]; j++) {
+                        sizes[i] = Math.max(sizes[i], Math.abs(ps.coefficient(i, j)) + ps.projectionError(i));
+                    }
+                }
+                for (int i = 0; i < 3; i++) {
+                    coefficientError += ps.projectionError(i) * sizes[(i + 1) % 3] * sizes[(i + 2) % 3];
+                }
+                double weightMax = 0;
+                int[] index = new int[d];
+                for (int cIndex = 0; cIndex < count; cIndex++) {
+                    unflatten(cIndex, m, index);
+                    double lambda = 0;
+                    for (int i = 0; i < d; i++) {
+                        lambda += axes[i].mu[index[i]] * axes[i].mu[index[i]];
+                    }
+                    c[cIndex] -= ps.coefficient(0, index[0]) * ps.coefficient(1, index[1])
+                        * ps.coefficient(2, index[2]) / (k * lambda);
+                    weightMax = Math.max(weightMax, 1 / (k * lambda));
+                }
+                err += coefficientError * weightMax;
+                double lambdaMin = 0;
+                for (int i = 0; i < 3; i++) {
+                    lambdaMin += axes[i].mu[0] * axes[i].mu[0];
+                }
+                uNorm += 1.01 * ps.restNorm(0) * ps.restNorm(1) * ps.restNorm(2) / (k * lambdaMin);
             }
             for (Face f : faces) {
                 double weightMax = 0;
@@ -3395,7 +3787,7 @@ public final class TensorSolver implements SpatialSolver {
     public Steady steadyPart() {
         // cheap without face series, lags, schedules, a source's blend, remainder or pair terms: not worth sharing
         if (faces.isEmpty() && lagFaces == 0 && lagSeries == null && moving.isEmpty() && sourceTerms.isEmpty()
-            && blends.isEmpty() && remainder == null && pairs.isEmpty()) {
+            && blends.isEmpty() && remainder == null && pairs.isEmpty() && productPart == null) {
             return null;
         }
         return (p, o) -> {
@@ -3551,8 +3943,9 @@ public final class TensorSolver implements SpatialSolver {
         }
         for (PairTerm t : pairs) {
             Evaluation e = t.at(p[o + t.a()], p[o + t.b()]);
-            value += e.value();
-            bound += e.bound();
+            double w = t.w(p[o + t.c()]);
+            value += w * e.value();
+            bound += Math.abs(w) * e.bound() + (t.w1() == 0 ? 0 : 2 * EPS * Math.abs(w * e.value()));
         }
         bound += pairDataError;
         double blendBudget = tolerance * scale / (16 * Math.max(1, blends.size()));
@@ -3570,11 +3963,12 @@ public final class TensorSolver implements SpatialSolver {
                 bound += c[1];
             }
         }
-        if (remainderValues != null) {
-            RemainderSeries r = remainderValues;
-            double[] vb = sumModes(p, o, null, null, r.m(), r.weights());
-            value += vb[0];
-            bound += vb[1] + r.bound();
+        for (RemainderSeries r : new RemainderSeries[] {remainderValues, productValues}) {
+            if (r != null) {
+                double[] vb = sumModes(p, o, null, null, r.m(), r.weights());
+                value += vb[0];
+                bound += vb[1] + r.bound();
+            }
         }
         double faceBudget = tolerance * scale / (4 * faces.size());
         value += addFaces(p, o, null, faceBudget, null, bounds);
@@ -4626,9 +5020,15 @@ public final class TensorSolver implements SpatialSolver {
             }
             for (PairTerm term : pairs) {
                 double[] gv = new double[2];
-                bound += term.slice().gradient(new double[] {p[o + term.a()], p[o + term.b()]}, 0, gv, 0);
-                g[term.a()] += gv[0];
-                g[term.b()] += gv[1];
+                double w = term.w(p[o + term.c()]);
+                bound += Math.abs(w) * term.slice().gradient(new double[] {p[o + term.a()], p[o + term.b()]}, 0, gv, 0);
+                g[term.a()] += w * gv[0];
+                g[term.b()] += w * gv[1];
+                if (term.w1() != 0) {
+                    Evaluation e = term.at(p[o + term.a()], p[o + term.b()]);
+                    g[term.c()] += term.w1() * e.value();
+                    bound += Math.abs(term.w1()) * e.bound();
+                }
             }
             if (pairDataError > 0) {
                 bound += pairGradientError(p, o);
@@ -4654,10 +5054,12 @@ public final class TensorSolver implements SpatialSolver {
                 g[b.axis()] += (b.side() == 0 ? 1 : -1) * gc[1];
                 bound += c[2];
             }
-            if (remainder != null) {
-                RemainderSeries r = remainderGradients();
-                double[] vb = sumModes(p, o, null, g, r.m(), r.weights());
-                bound += vb[2] + r.gradientBound();
+            for (RemainderSeries r : new RemainderSeries[] {remainder != null ? remainderGradients() : null,
+                productPart != null ? productGradients() : null}) {
+                if (r != null) {
+                    double[] vb = sumModes(p, o, null, g, r.m(), r.weights());
+                    bound += vb[2] + r.gradientBound();
+                }
             }
             addFaces(p, o, null, budget / (4 * faces.size()), g, bounds);
             bound += bounds[1];
@@ -4731,8 +5133,9 @@ public final class TensorSolver implements SpatialSolver {
                 // V does not vary along the third axis: its mean over the cell is its mean over the cell's face
                 Evaluation e = term.slice().average(new double[] {lo[term.a()], lo[term.b()]},
                     new double[] {hi[term.a()], hi[term.b()]});
-                value += e.value();
-                bound += e.bound();
+                double w = term.wMean(lo[term.c()], hi[term.c()]);
+                value += w * e.value();
+                bound += Math.abs(w) * e.bound() + (term.w1() == 0 ? 0 : 2 * EPS * Math.abs(w * e.value()));
             }
             bound += pairDataError;
             double blendBudget = budget / (16 * Math.max(1, blends.size()));
@@ -4753,11 +5156,12 @@ public final class TensorSolver implements SpatialSolver {
                 value += c[0];
                 bound += c[1];
             }
-            if (remainderValues != null) {
-                RemainderSeries r = remainderValues;
-                double[] vb = sumModes(lo, 0, hi, null, r.m(), r.weights());
-                value += vb[0];
-                bound += vb[1] + r.bound();
+            for (RemainderSeries r : new RemainderSeries[] {remainderValues, productValues}) {
+                if (r != null) {
+                    double[] vb = sumModes(lo, 0, hi, null, r.m(), r.weights());
+                    value += vb[0];
+                    bound += vb[1] + r.bound();
+                }
             }
             value += addFaces(lo, 0, hi, budget / (4 * faces.size()), null, bounds);
             bound += bounds[0];

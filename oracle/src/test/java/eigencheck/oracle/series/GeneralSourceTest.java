@@ -298,8 +298,8 @@ class GeneralSourceTest {
         OracleException e = assertThrows(OracleException.class, () -> Oracle.prepare(kinked, 0, 1e-8));
         assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
         assertTrue(e.getMessage().contains("may be non-smooth"), e.getMessage());
-        // a box: sources that are sums of terms of two coordinates each only
-        Problem cube = BoxPairSourceTest.heldUnitCube("x*y*z");
+        // a box: sources that are sums of terms of two coordinates each, or one product, only
+        Problem cube = BoxPairSourceTest.heldUnitCube("exp(x*y*z)");
         e = assertThrows(OracleException.class, () -> Oracle.prepare(cube, 0, 1e-8));
         assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
         assertTrue(e.getMessage().contains("two coordinates each"), e.getMessage());
