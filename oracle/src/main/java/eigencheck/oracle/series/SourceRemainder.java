@@ -249,6 +249,9 @@ final class SourceRemainder {
         private final double[][][] xEnds = new double[2][2][2];
 
         double value(double x, double y) {
+            if (factors != null) {
+                return factoredValue(x, y);
+            }
             if (blended[1] && x != lastX) {
                 for (int e = 0; e < 2; e++) {
                     for (int ox = 0; ox < 2; ox++) {
@@ -268,6 +271,37 @@ final class SourceRemainder {
                 }
             }
             own = source.value(x, y);
+            return derivative(0, 0, x, y, this);
+        }
+
+        /**
+         * The same for Q = f(x) g(y): every value the operator reads is a product of the factors' cached 1D
+         * expansions (a tensor Gauss grid revisits each x and y many times), not a 2D evaluation.
+         */
+        private double factoredValue(double x, double y) {
+            double[] fx = factorCache[0].computeIfAbsent(x, v -> expansion(factors[0], v));
+            double[] gy = factorCache[1].computeIfAbsent(y, v -> expansion(factors[1], v));
+            if (blended[1] && x != lastX) {
+                for (int e = 0; e < 2; e++) {
+                    double[] end = factorCache[1].computeIfAbsent(e == 0 ? 0.0 : len[1], v -> expansion(factors[1], v));
+                    for (int ox = 0; ox < 2; ox++) {
+                        for (int oy = 0; oy < 2; oy++) {
+                            boolean needed = ox == 0 && (oy == 0 || !dirichlet[1][e]);
+                            yEnds[e][ox][oy] = needed ? fx[ox] * end[oy] : 0;
+                        }
+                    }
+                }
+                lastX = x;
+            }
+            if (blended[0]) {
+                for (int e = 0; e < 2; e++) {
+                    double[] end = factorCache[0].computeIfAbsent(e == 0 ? 0.0 : len[0], v -> expansion(factors[0], v));
+                    for (int ox = 0; ox < 2; ox++) {
+                        xEnds[e][ox][0] = dirichlet[0][e] && ox == 1 ? 0 : end[ox] * gy[0];
+                    }
+                }
+            }
+            own = fx[0] * gy[0];
             return derivative(0, 0, x, y, this);
         }
 
