@@ -171,6 +171,33 @@ public final class Expression {
         return new Expression(a + "*[" + source + "] + " + b + "*[" + other.source + "]", variables, n);
     }
 
+    /**
+     * The terms of the expression read as a sum: its top-level additions and subtractions flattened, a term
+     * under a minus negated (a - (b - c) gives a, -b, c); the expression itself when it is not a sum. The
+     * terms add up to the expression exactly in real arithmetic.
+     */
+    public List<Expression> terms() {
+        List<Node> nodes = new java.util.ArrayList<>();
+        collectTerms(root, false, nodes);
+        List<Expression> out = new java.util.ArrayList<>();
+        for (int i = 0; i < nodes.size(); i++) {
+            out.add(nodes.size() == 1 ? this
+                : new Expression("term " + (i + 1) + " of [" + source + "]", variables, nodes.get(i)));
+        }
+        return out;
+    }
+
+    private static void collectTerms(Node n, boolean negative, List<Node> out) {
+        if (n instanceof Node.Binary b && (b.op == Node.Op.ADD || b.op == Node.Op.SUB)) {
+            collectTerms(b.a, negative, out);
+            collectTerms(b.b, negative ^ b.op == Node.Op.SUB, out);
+        } else if (n instanceof Node.Negate g) {
+            collectTerms(g.a, !negative, out);
+        } else {
+            out.add(negative ? new Node.Negate(n) : n);
+        }
+    }
+
     /** The same tree with one variable renamed (r read as x, say). */
     public Expression renamed(String from, String to) {
         int v = indexOf(from);

@@ -133,11 +133,11 @@ public final class TensorSolver implements SpatialSolver {
     private double pairDataError;
     /** The terms theta(t) phi(x) of a source that changes in time other than uniformly. */
     private final List<SourceSchedule> sourceTerms = new ArrayList<>();
-    /** A box source's part that couples x, y and z, as one product of factors (null otherwise). */
-    private ProductSource productPart;
-    /** Its steady series W_J = a_i b_j c_k / (k lambda_J) for values and for gradients. */
-    private RemainderSeries productValues;
-    private RemainderSeries productGradients;
+    /** A box source's part that couples x, y and z, as products of factors, one per term (none otherwise). */
+    private final List<ProductSource> productParts = new ArrayList<>();
+    /** Their steady series W_J = a_i b_j c_k / (k lambda_J) for values and for gradients, one per product. */
+    private RemainderSeries[] productValues = new RemainderSeries[0];
+    private RemainderSeries[] productGradients;
     /** The remainder's steady series W_J = Q_r,J / (k lambda_J) on boxes for values and for gradients. */
     private RemainderSeries remainderValues;
     private RemainderSeries remainderGradients;
@@ -344,32 +344,36 @@ public final class TensorSolver implements SpatialSolver {
                 split = remainderOf(q);
             } else if (d == 3 && !allFlux) {
                 double[] triple = tripleDifference(q);
+                boolean coupledOnly = false;
                 if (!(triple[0] <= 1e-12 * Math.max(1, triple[1]))) {
                     // a source coupling x, y and z as one product F(x) G(y) H(z): its own parts, and nothing left
                     double[] residual = new double[1];
                     // the whole source when it is one product (a spot heater)
-                    productPart = productOf(q, residual);
-                    if (productPart == null) {
-                        throw new OracleException(Reason.UNSUPPORTED, "source: varies with x, y and z together and is"
-                            + " not one product F(x) G(y) H(z) (the nearest differs by " + residual[0] + " W/m^3) nor"
-                            + " a sum of terms of two coordinates each; this version solves boxes whose source is one"
-                            + " of those (a spot heater A exp(-((x - a)^2 + (y - b)^2 + (z - c)^2) / w^2), a heater"
-                            + " line along an axis), and a rectangle takes any smooth source; for a general source use"
-                            + " a manufactured solution");
-                    }
-                    q = Expression.constant(0, q.variables().toArray(String[]::new));
-                    variation += 2 * residual[0] * lengthScale * lengthScale / k;
-                    triple = tripleDifference(q);
-                    for (java.util.Iterator<Integer> it = along.iterator(); it.hasNext(); ) {
-                        double change = variationAlong(q, it.next());
-                        if (Double.isFinite(change)) {
-                            variation += 2 * change * lengthScale * lengthScale / k;
-                            it.remove();
+                    ProductSource whole = productOf(q, residual);
+                    if (whole == null) {
+                        // else the part that couples all three, Q_t = D_x D_y D_z Q (D_i f = f - f at x_i = 0),
+                        // as products, one per term of Q written as a sum (a spot on a background beside a
+                        // heater line, two spots): Q - Q_t is what the pair terms read off the planes through the
+                        // origin, where Q_t vanishes
+                        variation += 2 * coupledProducts(q, residual[0]) * lengthScale * lengthScale / k;
+                        triple = new double[] {0, triple[1]};
+                        coupledOnly = true;
+                    } else {
+                        productParts.add(whole);
+                        q = Expression.constant(0, q.variables().toArray(String[]::new));
+                        variation += 2 * residual[0] * lengthScale * lengthScale / k;
+                        triple = tripleDifference(q);
+                        for (java.util.Iterator<Integer> it = along.iterator(); it.hasNext(); ) {
+                            double change = variationAlong(q, it.next());
+                            if (Double.isFinite(change)) {
+                                variation += 2 * change * lengthScale * lengthScale / k;
+                                it.remove();
+                            }
                         }
                     }
                 }
-                double[] pairMixed = along.size() > 1 ? mixedDifference(q, along) : new double[] {0, 0};
-                if (productPart != null && pairMixed[0] <= 1e-12 * Math.max(1, pairMixed[1])) {
+                double[] pairMixed = along.size() > 1 && !coupledOnly ? mixedDifference(q, along) : new double[] {0, 0};
+                if (!productParts.isEmpty() && !coupledOnly && pairMixed[0] <= 1e-12 * Math.max(1, pairMixed[1])) {
                     // the rest is additive: a slab along each axis it varies on
                     variation += 2 * (triple[0] + pairMixed[0]) * lengthScale * lengthScale / k;
                 } else {
@@ -422,7 +426,7 @@ public final class TensorSolver implements SpatialSolver {
                 sourceSlices[i] = new SlabSolver(slab, 0, tolerance / (8 * along.size())).at(0);
             }
         }
-        if (productPart != null) {
+        if (!productParts.isEmpty()) {
             addProductParts(problem.material());
         }
         this.timeVariation = variation;
@@ -1136,6 +1140,74 @@ public final class TensorSolver implements SpatialSolver {
         return new ProductSource(factors, axes, len, hOverK);
     }
 
+    /** The most products a box source's coupled part is split into (each costs up to six rectangles). */
+    private static final int PRODUCT_TERMS = 4;
+
+    /**
+     * A box source's part that couples x, y and z as products added to {@link #productParts}: Q_t itself
+     * when it is one product, else Q_t of each term of Q written as a sum ({@link Expression#terms}) that
+     * couples all three, each of which must be one product (at most {@link #PRODUCT_TERMS}). Returns the
+     * sum of the products' residuals; refuses (UNSUPPORTED) otherwise, naming the term that is not a product.
+     */
+    private double coupledProducts(Expression q, double wholeResidual) {
+        double[] residual = new double[1];
+        ProductSource one = productOf(coupledPart(q), residual);
+        if (one != null) {
+            productParts.add(one);
+            return residual[0];
+        }
+        double oneResidual = residual[0];
+        double size = Math.max(1, tripleDifference(q)[1]);
+        double total = 0;
+        String refusal = null;
+        for (Expression term : q.terms()) {
+            double[] triple = tripleDifference(term);
+            if (triple[0] <= 1e-12 * size) {
+                total += triple[0];
+                continue;
+            }
+            ProductSource ps = productOf(coupledPart(term), residual);
+            if (ps == null) {
+                refusal = "its term " + term.formula() + " couples all three and is not one product (the nearest"
+                    + " differs by " + residual[0] + " W/m^3)";
+                break;
+            }
+            productParts.add(ps);
+            total += residual[0];
+        }
+        if (refusal == null && productParts.size() > PRODUCT_TERMS) {
+            refusal = "it has " + productParts.size() + " terms that couple all three, more than the " + PRODUCT_TERMS
+                + " this version splits";
+        }
+        if (refusal == null && !productParts.isEmpty()) {
+            return total;
+        }
+        productParts.clear();
+        throw new OracleException(Reason.UNSUPPORTED, "source: varies with x, y and z together, and neither it nor"
+            + " its part that couples all three (Q less its values on the planes x = 0, y = 0 and z = 0, combined)"
+            + " is one product F(x) G(y) H(z) (the nearest differ by " + wholeResidual + " and " + oneResidual
+            + " W/m^3)" + (refusal == null ? "" : "; written as a sum, " + refusal) + "; this version solves boxes"
+            + " whose source is a sum of terms of two coordinates each plus up to " + PRODUCT_TERMS + " terms that"
+            + " are each one such product (a spot heater A exp(-((x - a)^2 + (y - b)^2 + (z - c)^2) / w^2), on a"
+            + " background or beside a heater line along an axis), and a rectangle takes any smooth source; for a"
+            + " general source (exp(x y z), say) use a manufactured solution");
+    }
+
+    /**
+     * The part of a box source that couples x, y and z, anchored at the origin: Q_t = D_x D_y D_z Q with
+     * D_i f = f - f(x_i = 0), the sum over the corners of [0, p] of (-1)^(3 - |S|) Q(p_S, 0). It vanishes on the
+     * planes x_i = 0, so Q - Q_t is the sum of terms of two coordinates that those planes give, and for
+     * Q = (such a sum) + F G H it is (F - F(0)) (G - G(0)) (H - H(0)), one product again.
+     */
+    private static Expression coupledPart(Expression q) {
+        Expression e = q.variables().contains("t") ? q.substitute("t", 0) : q;
+        e = e.over("x", "y", "z");
+        for (String v : NAMES) {
+            e = e.linear(1, e.substitute(v, 0).over("x", "y", "z"), -1);
+        }
+        return e;
+    }
+
     /**
      * The product's parts ({@link ProductSource}): for each end e of a blended axis c, the pair term
      * psi_e(x_c) V(x_a, x_b), V from a rectangle solver of its own under a's and b's homogeneous conditions with
@@ -1143,13 +1215,33 @@ public final class TensorSolver implements SpatialSolver {
      * of F_r G_r H_r.
      */
     private void addProductParts(Material material) {
-        ProductSource ps = productPart;
         int terms = 0;
-        for (int c = 0; c < 3; c++) {
-            for (int e = 0; e < 2 && ps.blended(c); e++) {
-                terms += ps.endData(c, e) != 0 ? 1 : 0;
+        for (ProductSource ps : productParts) {
+            for (int c = 0; c < 3; c++) {
+                for (int e = 0; e < 2 && ps.blended(c); e++) {
+                    terms += ps.endData(c, e) != 0 ? 1 : 0;
+                }
             }
         }
+        int count = productParts.size();
+        productValues = new RemainderSeries[count];
+        productGradients = new RemainderSeries[count];
+        for (int part = 0; part < count; part++) {
+            ProductSource ps = productParts.get(part);
+            addProductPart(ps, material, terms);
+            productValues[part] = productSeries(ps, false, count);
+            if (!(productValues[part].bound() <= tolerance * scale / (16 * count))) {
+                throw new OracleException(Reason.TOO_MANY_MODES, "source: its part that couples x, y and z"
+                    + (count > 1 ? " (term " + (part + 1) + " of " + count + ")" : "") + " needs more than "
+                    + PRODUCT_CAP + " modes per axis at tolerance " + tolerance + " (what they leave is bounded by "
+                    + productValues[part].bound() + " K, the budget is " + tolerance * scale / (16 * count)
+                    + " K); loosen the tolerance, or widen the source");
+            }
+        }
+    }
+
+    /** One product's blend parts, as pair terms (one of {@code terms} in all). */
+    private void addProductPart(ProductSource ps, Material material, int terms) {
         for (int c = 0; c < 3; c++) {
             if (!ps.blended(c)) {
                 continue;
@@ -1184,13 +1276,6 @@ public final class TensorSolver implements SpatialSolver {
                     pairDataError += term.error() * pairDataWeight(term);
                 }
             }
-        }
-        productValues = productSeries(false);
-        if (!(productValues.bound() <= tolerance * scale / 16)) {
-            throw new OracleException(Reason.TOO_MANY_MODES, "source: its part that couples x, y and z needs more"
-                + " than " + PRODUCT_CAP + " modes per axis at tolerance " + tolerance + " (what they leave is bounded"
-                + " by " + productValues.bound() + " K, the budget is " + tolerance * scale / 16 + " K); loosen the"
-                + " tolerance, or widen the source");
         }
     }
 
@@ -1229,11 +1314,10 @@ public final class TensorSolver implements SpatialSolver {
      * summed over the three components. Projection errors e_i per coefficient add
      * e_x n_x sum |b| sum |c| / (k lambda_min) and likewise.
      */
-    private RemainderSeries productSeries(boolean forGradients) {
-        ProductSource ps = productPart;
+    private RemainderSeries productSeries(ProductSource ps, boolean forGradients, int share) {
         // the factors' coefficients are cheap: 2048 of each make the tails' integration-by-parts part negligible
         ps.ensure(PRODUCT_TAIL);
-        double budget = tolerance * scale / 16 / (forGradients ? lengthScale : 1);
+        double budget = tolerance * scale / (16 * share) / (forGradients ? lengthScale : 1);
         double[] total = new double[3];
         for (int i = 0; i < 3; i++) {
             total[i] = ps.total(i);
@@ -1282,13 +1366,23 @@ public final class TensorSolver implements SpatialSolver {
         return new RemainderSeries(PRODUCT_CAP, n, w, valueTail + projection, gradientTail + projection * muSum);
     }
 
-    /** The product's series for gradients, on the first request: the value table when its gradient bound serves. */
-    private synchronized RemainderSeries productGradients() {
-        if (productGradients == null) {
-            double budget = tolerance * scale / (16 * lengthScale);
-            productGradients = productValues.gradientBound() <= budget ? productValues : productSeries(true);
+    /** The rectangle's remainder series (or null) followed by the products' value series. */
+    private RemainderSeries[] withProducts(RemainderSeries first) {
+        RemainderSeries[] all = new RemainderSeries[productValues.length + 1];
+        all[0] = first;
+        System.arraycopy(productValues, 0, all, 1, productValues.length);
+        return all;
+    }
+
+    /** A product's series for gradients, on the first request: the value table when its gradient bound serves. */
+    private synchronized RemainderSeries productGradients(int part) {
+        if (productGradients[part] == null) {
+            int count = productParts.size();
+            double budget = tolerance * scale / (16 * count * lengthScale);
+            productGradients[part] = productValues[part].gradientBound() <= budget ? productValues[part]
+                : productSeries(productParts.get(part), true, count);
         }
-        return productGradients;
+        return productGradients[part];
     }
 
     /** The steady rectangle of axes a, b (as x, y) under their homogeneous conditions, with source T_ab. */
@@ -3287,9 +3381,8 @@ public final class TensorSolver implements SpatialSolver {
                 double lambdaMin = axes[0].mu[0] * axes[0].mu[0] + axes[1].mu[0] * axes[1].mu[0];
                 uNorm += 1.01 * qr[1][1] / (k * lambdaMin);
             }
-            if (productPart != null) {
+            for (ProductSource ps : productParts) {
                 // W_J = a_i b_j c_k / (k lambda_J) exactly, and ||W|| <= ||F_r|| ||G_r|| ||H_r|| / (k lambda_min)
-                ProductSource ps = productPart;
                 int most = Math.max(m[0], Math.max(m[1], m[2]));
                 ps.ensure(Math.max(most, ps.computed()));
                 double[] sizes = new double[3];
@@ -3787,7 +3880,7 @@ public final class TensorSolver implements SpatialSolver {
     public Steady steadyPart() {
         // cheap without face series, lags, schedules, a source's blend, remainder or pair terms: not worth sharing
         if (faces.isEmpty() && lagFaces == 0 && lagSeries == null && moving.isEmpty() && sourceTerms.isEmpty()
-            && blends.isEmpty() && remainder == null && pairs.isEmpty() && productPart == null) {
+            && blends.isEmpty() && remainder == null && pairs.isEmpty() && productParts.isEmpty()) {
             return null;
         }
         return (p, o) -> {
@@ -3963,7 +4056,7 @@ public final class TensorSolver implements SpatialSolver {
                 bound += c[1];
             }
         }
-        for (RemainderSeries r : new RemainderSeries[] {remainderValues, productValues}) {
+        for (RemainderSeries r : withProducts(remainderValues)) {
             if (r != null) {
                 double[] vb = sumModes(p, o, null, null, r.m(), r.weights());
                 value += vb[0];
@@ -5054,8 +5147,11 @@ public final class TensorSolver implements SpatialSolver {
                 g[b.axis()] += (b.side() == 0 ? 1 : -1) * gc[1];
                 bound += c[2];
             }
-            for (RemainderSeries r : new RemainderSeries[] {remainder != null ? remainderGradients() : null,
-                productPart != null ? productGradients() : null}) {
+            RemainderSeries[] gradientSeries = withProducts(remainder != null ? remainderGradients() : null);
+            for (int part = 0; part < productParts.size(); part++) {
+                gradientSeries[part + 1] = productGradients(part);
+            }
+            for (RemainderSeries r : gradientSeries) {
                 if (r != null) {
                     double[] vb = sumModes(p, o, null, g, r.m(), r.weights());
                     bound += vb[2] + r.gradientBound();
@@ -5156,7 +5252,7 @@ public final class TensorSolver implements SpatialSolver {
                 value += c[0];
                 bound += c[1];
             }
-            for (RemainderSeries r : new RemainderSeries[] {remainderValues, productValues}) {
+            for (RemainderSeries r : withProducts(remainderValues)) {
                 if (r != null) {
                     double[] vb = sumModes(lo, 0, hi, null, r.m(), r.weights());
                     value += vb[0];

@@ -135,4 +135,26 @@ class ExpressionTest {
         assertEquals(Math.sin(2.0) * 3, Expression.parse("sin(y)*x", "x", "y").substitute("y", 2).value(3), 1e-15);
         assertTrue(Expression.parse("2*3*x", "x").formula().contains("3"));
     }
+
+    @Test
+    void aSumSplitsIntoItsSignedTerms() {
+        // a - (b - c) + (-d) reads as the terms a, -b, c, -d (the signs of a sum, common practice); a product or
+        // a call is one term; the terms add up to the whole at every point
+        Expression e = Expression.parse("x^2 - (3*y - exp(x*y)) + (-sin(y)) + 2", "x", "y");
+        java.util.List<Expression> terms = e.terms();
+        assertEquals(5, terms.size());
+        double[][] points = {{0.3, 0.7}, {1.5, -0.4}};
+        double[][] expected = {{0.09, -2.1, Math.exp(0.21), -Math.sin(0.7), 2},
+            {2.25, 1.2, Math.exp(-0.6), Math.sin(0.4), 2}};
+        for (int p = 0; p < points.length; p++) {
+            double sum = 0;
+            for (int t = 0; t < terms.size(); t++) {
+                double v = terms.get(t).value(points[p]);
+                assertEquals(expected[p][t], v, 1e-15, "term " + t);
+                sum += v;
+            }
+            assertEquals(e.value(points[p]), sum, 1e-14);
+        }
+        assertEquals(1, Expression.parse("x*(y + 1)", "x", "y").terms().size());
+    }
 }

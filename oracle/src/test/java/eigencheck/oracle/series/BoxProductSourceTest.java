@@ -71,13 +71,7 @@ class BoxProductSourceTest {
         // u = exp(0.7 x - 0.5 y + 0.3 z): -k lap u = -k (0.49 + 0.25 + 0.09) u is one product of three factors;
         // faces derived exactly (method of manufactured solutions, common practice)
         Expression exact = Expression.parse("exp(0.7*x - 0.5*y + 0.3*z)", "x", "y", "z", "t");
-        Map<Side, Manufactured.Face> kinds = new EnumMap<>(Side.class);
-        kinds.put(Side.XMIN, Manufactured.Face.dirichlet());
-        kinds.put(Side.XMAX, Manufactured.Face.robin(5));
-        kinds.put(Side.YMIN, Manufactured.Face.neumann());
-        kinds.put(Side.YMAX, Manufactured.Face.dirichlet());
-        kinds.put(Side.ZMIN, Manufactured.Face.robin(2));
-        kinds.put(Side.ZMAX, Manufactured.Face.neumann());
+        Map<Side, Manufactured.Face> kinds = mixedFaces();
         double lx = 1.0;
         double ly = 0.8;
         double lz = 0.6;
@@ -122,6 +116,18 @@ class BoxProductSourceTest {
         }
         mean /= 0.2 * 0.2 * 0.2;
         assertWithin(mean, o.cellAverage(lo, hi, 0), limit, "mean over the cell");
+    }
+
+    /** Temperature, flux and convective faces, two of each. */
+    private static Map<Side, Manufactured.Face> mixedFaces() {
+        Map<Side, Manufactured.Face> kinds = new EnumMap<>(Side.class);
+        kinds.put(Side.XMIN, Manufactured.Face.dirichlet());
+        kinds.put(Side.XMAX, Manufactured.Face.robin(5));
+        kinds.put(Side.YMIN, Manufactured.Face.neumann());
+        kinds.put(Side.YMAX, Manufactured.Face.dirichlet());
+        kinds.put(Side.ZMIN, Manufactured.Face.robin(2));
+        kinds.put(Side.ZMAX, Manufactured.Face.neumann());
+        return kinds;
     }
 
     @Test
@@ -192,12 +198,85 @@ class BoxProductSourceTest {
     }
 
     @Test
+    void manufacturedProductBesideAPairTerm() {
+        // u = exp(0.7 x - 0.5 y + 0.3 z) + x^2 y: the source -k (0.83 exp(...) + 2 y) is not one product, but its
+        // part that couples x, y and z is, and the rest is terms of two coordinates; faces derived exactly
+        // (method of manufactured solutions, common practice)
+        Expression exact = Expression.parse("exp(0.7*x - 0.5*y + 0.3*z) + x^2*y", "x", "y", "z", "t");
+        Map<Side, Manufactured.Face> kinds = mixedFaces();
+        double[] len = {1.0, 0.8, 0.6};
+        Problem m = Manufactured.cartesian(exact, new Box(len[0], len[1], len[2]), new Material(2, 3), kinds);
+        Problem p = new Problem(m.domain(), m.material(), m.initial(), m.source(), m.boundary(), true);
+        double tol = 1e-8;
+        Oracle o = Oracle.prepare(p, 0, tol);
+        double limit = tol * o.temperatureScale();
+        for (double fx : new double[] {0.2, 0.7}) {
+            for (double fy : new double[] {0.3, 0.9}) {
+                for (double fz : new double[] {0.1, 0.6}) {
+                    double[] q = {fx * len[0], fy * len[1], fz * len[2]};
+                    assertWithin(exact.value(q[0], q[1], q[2], 0), o.temperature(q, 0), limit,
+                        "u at " + java.util.Arrays.toString(q));
+                }
+            }
+        }
+        String[] names = {"x", "y", "z"};
+        double[] q = {0.4, 0.3, 0.25};
+        Evaluation[] g = o.gradient(q, 0);
+        for (int c = 0; c < 3; c++) {
+            double d = exact.derivative(names[c]).value(q[0], q[1], q[2], 0);
+            assertWithin(d, g[c], 100 * limit, "du/d" + names[c] + " at " + java.util.Arrays.toString(q));
+        }
+    }
+
+    @Test
+    void spotOnABackgroundBesideAHeaterLineIsTheSumOfItsParts() {
+        // a spot, a uniform background and a heater line along z in a held cube. The sum takes the coupled-part
+        // route (the spot less its values on the planes through the origin is the product), the spot alone the
+        // whole-source product, the rest pair terms: three different splits
+        assertSuperposed("1000*exp(-((x-0.5)^2+(y-0.4)^2+(z-0.6)^2)/0.05)", "5 + 30*exp(-((x-0.3)^2+(y-0.7)^2)/0.1)",
+            new double[][] {{0.5, 0.4, 0.6}, {0.2, 0.3, 0.4}, {0.3, 0.7, 0.9}});
+    }
+
+    @Test
+    void twoSpotsAreTheSumOfEachAlone() {
+        // two spot heaters of different strength and width in a held cube: the source written as a sum is split
+        // into its terms' coupled parts, a product each; each spot alone takes the whole-source route
+        assertSuperposed("1000*exp(-((x-0.3)^2+(y-0.3)^2+(z-0.3)^2)/0.05)",
+            "500*exp(-((x-0.7)^2+(y-0.6)^2+(z-0.5)^2)/0.03)",
+            new double[][] {{0.5, 0.4, 0.6}, {0.3, 0.3, 0.3}, {0.7, 0.6, 0.5}});
+    }
+
+    /**
+     * The held cube's steady problem is linear, so the solution for sources A + B is the sum of A's alone and
+     * B's (superposition, common practice): checked at 1e-6 at the points, within the three summed bounds, with
+     * each part far above those bounds (so that dropping either would fail).
+     */
+    private static void assertSuperposed(String one, String two, double[][] points) {
+        double tol = 1e-6;
+        Oracle both = Oracle.prepare(BoxPairSourceTest.heldUnitCube(one + " + " + two), 0, tol);
+        Oracle first = Oracle.prepare(BoxPairSourceTest.heldUnitCube(one), 0, tol);
+        Oracle second = Oracle.prepare(BoxPairSourceTest.heldUnitCube(two), 0, tol);
+        double limit = tol * (both.temperatureScale() + first.temperatureScale() + second.temperatureScale());
+        for (double[] p : points) {
+            Evaluation a = first.temperature(p, 0);
+            Evaluation b = second.temperature(p, 0);
+            Evaluation c = both.temperature(p, 0);
+            double bounds = a.bound() + b.bound() + c.bound();
+            assertWithin(a.value() + b.value(), new Evaluation(c.value(), bounds), limit,
+                one + " plus " + two + " at " + java.util.Arrays.toString(p));
+            assertTrue(Math.min(Math.abs(a.value()), Math.abs(b.value())) > 100 * bounds,
+                "both parts far above the bounds at " + java.util.Arrays.toString(p) + ": " + a.value() + ", "
+                    + b.value());
+        }
+    }
+
+    @Test
     void refusesACouplingThatIsNotOneProduct() {
-        // two spots: their coupling part is a sum of two products, which this version does not split
-        Problem two = BoxPairSourceTest.heldUnitCube("exp(-((x-0.3)^2+(y-0.3)^2+(z-0.3)^2)/0.05)"
-            + " + exp(-((x-0.7)^2+(y-0.6)^2+(z-0.5)^2)/0.05)");
-        OracleException e = assertThrows(OracleException.class, () -> Oracle.prepare(two, 0, 1e-6));
+        // a spot beside exp(x y z): the second term couples all three and is no product; the refusal names it
+        Problem mixed = BoxPairSourceTest.heldUnitCube("exp(-((x-0.3)^2+(y-0.3)^2+(z-0.3)^2)/0.05) + exp(x*y*z)");
+        OracleException e = assertThrows(OracleException.class, () -> Oracle.prepare(mixed, 0, 1e-6));
         assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
         assertTrue(e.getMessage().contains("one product F(x) G(y) H(z)"), e.getMessage());
+        assertTrue(e.getMessage().contains("exp(((x*y)*z))"), e.getMessage());
     }
 }
