@@ -351,17 +351,22 @@ public final class TensorSolver implements SpatialSolver {
                     // the whole source when it is one product (a spot heater)
                     ProductSource whole = productOf(q, residual);
                     if (whole == null) {
-                        // else the part that couples all three, Q_t = D_x D_y D_z Q (D_i f = f - f at x_i = 0),
-                        // as products, one per term of Q written as a sum (a spot on a background beside a
-                        // heater line, two spots): Q - Q_t is what the pair terms read off the planes through the
-                        // origin, where Q_t vanishes
-                        variation += 2 * coupledProducts(q, residual[0]) * lengthScale * lengthScale / k;
-                        triple = new double[] {0, triple[1]};
-                        coupledOnly = true;
+                        // else Q's terms as written (two spots, a spot on a background beside a heater line): a
+                        // term that is one product leaves the rest, another that couples all three gives its
+                        // part Q_t = D_x D_y D_z term (D_i f = f - f at x_i = 0) and stays, read by the pair
+                        // terms off the planes through the origin, where Q_t vanishes
+                        double[] parts = new double[2];
+                        q = productTerms(q, residual[0], parts);
+                        variation += 2 * parts[0] * lengthScale * lengthScale / k;
+                        coupledOnly = parts[1] != 0;
                     } else {
                         productParts.add(whole);
                         q = Expression.constant(0, q.variables().toArray(String[]::new));
                         variation += 2 * residual[0] * lengthScale * lengthScale / k;
+                    }
+                    if (coupledOnly) {
+                        triple = new double[] {0, triple[1]};
+                    } else {
                         triple = tripleDifference(q);
                         for (java.util.Iterator<Integer> it = along.iterator(); it.hasNext(); ) {
                             double change = variationAlong(q, it.next());
@@ -421,7 +426,7 @@ public final class TensorSolver implements SpatialSolver {
             // an additive source Q(0) + sum_i (Q along axis i - Q(0)): the constant goes with the first axis
             double q0 = valueAt(q, new double[d]);
             for (int i : along) {
-                Problem slab = sourceSlab(problem, i, i == along.get(0) && pairs.isEmpty() ? 0 : q0);
+                Problem slab = sourceSlab(q, problem.material(), i, i == along.get(0) && pairs.isEmpty() ? 0 : q0);
                 sourceParts[i] = slab.source();
                 sourceSlices[i] = new SlabSolver(slab, 0, tolerance / (8 * along.size())).at(0);
             }
@@ -1144,48 +1149,63 @@ public final class TensorSolver implements SpatialSolver {
     private static final int PRODUCT_TERMS = 4;
 
     /**
-     * A box source's part that couples x, y and z as products added to {@link #productParts}: Q_t itself
-     * when it is one product, else Q_t of each term of Q written as a sum ({@link Expression#terms}) that
-     * couples all three, each of which must be one product (at most {@link #PRODUCT_TERMS}). Returns the
-     * sum of the products' residuals; refuses (UNSUPPORTED) otherwise, naming the term that is not a product.
+     * Splits a box source that is not one product by its terms as written ({@link Expression#terms}): a term
+     * that couples x, y and z and is one product goes to {@link #productParts} and leaves the rest; one that
+     * couples all three and is not gives its coupled part ({@link #coupledPart}) as a product and stays in the
+     * rest, whose pair terms then read it off the planes through the origin (where that part vanishes). When
+     * the terms do not serve, Q's own coupled part as one product (Q stays whole). At most
+     * {@link #PRODUCT_TERMS} products. Returns the rest (the sum of the terms that stay, exactly as written);
+     * out[0] = the products' residuals summed, out[1] = 1 when the rest still couples all three (its pair terms
+     * must read the planes), else 0. Refuses (UNSUPPORTED) otherwise, naming the term that is not a product.
      */
-    private double coupledProducts(Expression q, double wholeResidual) {
+    private Expression productTerms(Expression q, double wholeResidual, double[] out) {
         double[] residual = new double[1];
-        ProductSource one = productOf(coupledPart(q), residual);
-        if (one != null) {
-            productParts.add(one);
-            return residual[0];
-        }
-        double oneResidual = residual[0];
+        List<Expression> terms = q.terms();
         double size = Math.max(1, tripleDifference(q)[1]);
+        Expression rest = null;
         double total = 0;
+        boolean coupled = false;
         String refusal = null;
-        for (Expression term : q.terms()) {
+        for (Expression term : terms.size() > 1 ? terms : List.<Expression>of()) {
             double[] triple = tripleDifference(term);
+            ProductSource ps = null;
             if (triple[0] <= 1e-12 * size) {
                 total += triple[0];
+            } else if ((ps = productOf(term, residual)) != null) {
+                productParts.add(ps);
+                total += residual[0];
                 continue;
-            }
-            ProductSource ps = productOf(coupledPart(term), residual);
-            if (ps == null) {
-                refusal = "its term " + term.formula() + " couples all three and is not one product (the nearest"
-                    + " differs by " + residual[0] + " W/m^3)";
+            } else if ((ps = productOf(coupledPart(term), residual)) != null) {
+                productParts.add(ps);
+                total += residual[0];
+                coupled = true;
+            } else {
+                refusal = "its term " + term.formula() + " couples all three and neither it nor its part that"
+                    + " couples all three is one product (the nearest differs by " + residual[0] + " W/m^3)";
                 break;
             }
-            productParts.add(ps);
-            total += residual[0];
+            rest = rest == null ? term : rest.linear(1, term, 1);
         }
         if (refusal == null && productParts.size() > PRODUCT_TERMS) {
             refusal = "it has " + productParts.size() + " terms that couple all three, more than the " + PRODUCT_TERMS
                 + " this version splits";
         }
         if (refusal == null && !productParts.isEmpty()) {
-            return total;
+            out[0] = total;
+            out[1] = coupled ? 1 : 0;
+            return rest == null ? Expression.constant(0, q.variables().toArray(String[]::new)) : rest;
         }
         productParts.clear();
+        ProductSource one = productOf(coupledPart(q), residual);
+        if (one != null) {
+            productParts.add(one);
+            out[0] = residual[0];
+            out[1] = 1;
+            return q;
+        }
         throw new OracleException(Reason.UNSUPPORTED, "source: varies with x, y and z together, and neither it nor"
             + " its part that couples all three (Q less its values on the planes x = 0, y = 0 and z = 0, combined)"
-            + " is one product F(x) G(y) H(z) (the nearest differ by " + wholeResidual + " and " + oneResidual
+            + " is one product F(x) G(y) H(z) (the nearest differ by " + wholeResidual + " and " + residual[0]
             + " W/m^3)" + (refusal == null ? "" : "; written as a sum, " + refusal) + "; this version solves boxes"
             + " whose source is a sum of terms of two coordinates each plus up to " + PRODUCT_TERMS + " terms that"
             + " are each one such product (a spot heater A exp(-((x - a)^2 + (y - b)^2 + (z - c)^2) / w^2), on a"
@@ -1740,8 +1760,8 @@ public final class TensorSolver implements SpatialSolver {
     }
 
     /** The steady slab problem of P along {@code axis}, with that axis's homogeneous face conditions. */
-    private Problem sourceSlab(Problem problem, int axis, double subtract) {
-        Expression q = problem.source();
+    private Problem sourceSlab(Expression source, Material material, int axis, double subtract) {
+        Expression q = source;
         for (int i = 0; i < d; i++) {
             if (i != axis && q.variables().contains(NAMES[i])) {
                 q = q.substitute(NAMES[i], 0);
@@ -1753,7 +1773,7 @@ public final class TensorSolver implements SpatialSolver {
         if (subtract != 0) {
             q = q.linear(1, Expression.constant(1, q.variables().toArray(String[]::new)), -subtract);
         }
-        return slabProblem(q, axis, problem.material());
+        return slabProblem(q, axis, material);
     }
 
     /** The steady slab problem along {@code axis} of a source over that axis's coordinate, with its homogeneous conditions. */

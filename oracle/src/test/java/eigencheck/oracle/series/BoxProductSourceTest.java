@@ -230,30 +230,33 @@ class BoxProductSourceTest {
 
     @Test
     void spotOnABackgroundBesideAHeaterLineIsTheSumOfItsParts() {
-        // a spot, a uniform background and a heater line along z in a held cube. The sum takes the coupled-part
-        // route (the spot less its values on the planes through the origin is the product), the spot alone the
-        // whole-source product, the rest pair terms: three different splits
-        assertSuperposed("1000*exp(-((x-0.5)^2+(y-0.4)^2+(z-0.6)^2)/0.05)", "5 + 30*exp(-((x-0.3)^2+(y-0.7)^2)/0.1)",
+        // a spot on a uniform background, written as one term, beside a heater line along z in a held cube. The
+        // sum takes the coupled-part route (the first term less its values on the planes through the origin is
+        // the product), the spot alone the whole-source product, the rest pair terms: three different splits
+        String spot = "exp(-((x-0.5)^2+(y-0.4)^2+(z-0.6)^2)/0.05)";
+        String line = "30*exp(-((x-0.3)^2+(y-0.7)^2)/0.1)";
+        assertSuperposed("0.5*(2000*" + spot + " + 10) + " + line, "1000*" + spot, "5 + " + line,
             new double[][] {{0.5, 0.4, 0.6}, {0.2, 0.3, 0.4}, {0.3, 0.7, 0.9}});
     }
 
     @Test
     void twoSpotsAreTheSumOfEachAlone() {
         // two spot heaters of different strength and width in a held cube: the source written as a sum is split
-        // into its terms' coupled parts, a product each; each spot alone takes the whole-source route
-        assertSuperposed("1000*exp(-((x-0.3)^2+(y-0.3)^2+(z-0.3)^2)/0.05)",
-            "500*exp(-((x-0.7)^2+(y-0.6)^2+(z-0.5)^2)/0.03)",
+        // into its terms, a product each; each spot alone takes the whole-source route
+        String one = "1000*exp(-((x-0.3)^2+(y-0.3)^2+(z-0.3)^2)/0.05)";
+        String two = "500*exp(-((x-0.7)^2+(y-0.6)^2+(z-0.5)^2)/0.03)";
+        assertSuperposed(one + " + " + two, one, two,
             new double[][] {{0.5, 0.4, 0.6}, {0.3, 0.3, 0.3}, {0.7, 0.6, 0.5}});
     }
 
     /**
-     * The held cube's steady problem is linear, so the solution for sources A + B is the sum of A's alone and
-     * B's (superposition, common practice): checked at 1e-6 at the points, within the three summed bounds, with
+     * The held cube's steady problem is linear, so the solution for a source written as {@code sum}, equal to
+     * A + B, is the sum of A's alone and B's (superposition, common practice): checked at 1e-6 at the points, within the three summed bounds, with
      * each part far above those bounds (so that dropping either would fail).
      */
-    private static void assertSuperposed(String one, String two, double[][] points) {
+    private static void assertSuperposed(String sum, String one, String two, double[][] points) {
         double tol = 1e-6;
-        Oracle both = Oracle.prepare(BoxPairSourceTest.heldUnitCube(one + " + " + two), 0, tol);
+        Oracle both = Oracle.prepare(BoxPairSourceTest.heldUnitCube(sum), 0, tol);
         Oracle first = Oracle.prepare(BoxPairSourceTest.heldUnitCube(one), 0, tol);
         Oracle second = Oracle.prepare(BoxPairSourceTest.heldUnitCube(two), 0, tol);
         double limit = tol * (both.temperatureScale() + first.temperatureScale() + second.temperatureScale());
@@ -263,7 +266,7 @@ class BoxProductSourceTest {
             Evaluation c = both.temperature(p, 0);
             double bounds = a.bound() + b.bound() + c.bound();
             assertWithin(a.value() + b.value(), new Evaluation(c.value(), bounds), limit,
-                one + " plus " + two + " at " + java.util.Arrays.toString(p));
+                sum + " as " + one + " plus " + two + " at " + java.util.Arrays.toString(p));
             assertTrue(Math.min(Math.abs(a.value()), Math.abs(b.value())) > 100 * bounds,
                 "both parts far above the bounds at " + java.util.Arrays.toString(p) + ": " + a.value() + ", "
                     + b.value());
@@ -272,7 +275,8 @@ class BoxProductSourceTest {
 
     @Test
     void refusesACouplingThatIsNotOneProduct() {
-        // a spot beside exp(x y z): the second term couples all three and is no product; the refusal names it
+        // a spot beside exp(x y z): the second term couples all three and neither it nor its coupled part is a
+        // product; the refusal names it
         Problem mixed = BoxPairSourceTest.heldUnitCube("exp(-((x-0.3)^2+(y-0.3)^2+(z-0.3)^2)/0.05) + exp(x*y*z)");
         OracleException e = assertThrows(OracleException.class, () -> Oracle.prepare(mixed, 0, 1e-6));
         assertEquals(OracleException.Reason.UNSUPPORTED, e.reason());
