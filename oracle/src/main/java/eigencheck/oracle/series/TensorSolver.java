@@ -1246,17 +1246,24 @@ public final class TensorSolver implements SpatialSolver {
         int count = productParts.size();
         productValues = new RemainderSeries[count];
         productGradients = new RemainderSeries[count];
+        // each table is sized for an equal share of tolerance * scale / 16; what they leave together must stay
+        // within the whole of it (a wide spot's table may take what a narrow one's leaves)
+        double left = 0;
+        StringBuilder each = new StringBuilder();
         for (int part = 0; part < count; part++) {
             ProductSource ps = productParts.get(part);
             addProductPart(ps, material, terms);
             productValues[part] = productSeries(ps, false, count);
-            if (!(productValues[part].bound() <= tolerance * scale / (16 * count))) {
-                throw new OracleException(Reason.TOO_MANY_MODES, "source: its part that couples x, y and z"
-                    + (count > 1 ? " (term " + (part + 1) + " of " + count + ")" : "") + " needs more than "
-                    + PRODUCT_CAP + " modes per axis at tolerance " + tolerance + " (what they leave is bounded by "
-                    + productValues[part].bound() + " K, the budget is " + tolerance * scale / (16 * count)
-                    + " K); loosen the tolerance, or widen the source");
-            }
+            left += productValues[part].bound();
+            each.append(part == 0 ? "" : ", ").append(productValues[part].bound());
+        }
+        double budget = tolerance * scale / 16;
+        if (!(left <= budget)) {
+            throw new OracleException(Reason.TOO_MANY_MODES, "source: its part that couples x, y and z"
+                + (count > 1 ? " (" + count + " products)" : "") + " needs more than " + PRODUCT_CAP + " modes per"
+                + " axis at tolerance " + tolerance + " (what they leave is bounded by " + left + " K"
+                + (count > 1 ? " (" + each + ")" : "") + ", the budget is " + budget + " K); loosen the tolerance,"
+                + " or widen the source");
         }
     }
 
