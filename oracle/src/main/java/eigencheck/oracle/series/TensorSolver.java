@@ -1393,6 +1393,15 @@ public final class TensorSolver implements SpatialSolver {
         return new RemainderSeries(PRODUCT_CAP, n, w, valueTail + projection, gradientTail + projection * muSum);
     }
 
+    /** The eigenvalue lambda_J = sum_i mu_i,J_i^2 of the tensor mode with the given index per axis. */
+    private double eigenvalue(int[] index) {
+        double lambda = 0;
+        for (int i = 0; i < d; i++) {
+            lambda += axes[i].mu[index[i]] * axes[i].mu[index[i]];
+        }
+        return lambda;
+    }
+
     /** The rectangle's remainder series (or null) followed by the products' value series. */
     private RemainderSeries[] withProducts(RemainderSeries first) {
         RemainderSeries[] all = new RemainderSeries[productValues.length + 1];
@@ -3397,10 +3406,7 @@ public final class TensorSolver implements SpatialSolver {
                 int[] index = new int[d];
                 for (int cIndex = 0; cIndex < count; cIndex++) {
                     unflatten(cIndex, m, index);
-                    double lambda = 0;
-                    for (int i = 0; i < d; i++) {
-                        lambda += axes[i].mu[index[i]] * axes[i].mu[index[i]];
-                    }
+                    double lambda = eigenvalue(index);
                     c[cIndex] -= qr[0][cIndex] / (k * lambda);
                     weightMax = Math.max(weightMax, 1 / (k * lambda));
                 }
@@ -3426,10 +3432,7 @@ public final class TensorSolver implements SpatialSolver {
                 int[] index = new int[d];
                 for (int cIndex = 0; cIndex < count; cIndex++) {
                     unflatten(cIndex, m, index);
-                    double lambda = 0;
-                    for (int i = 0; i < d; i++) {
-                        lambda += axes[i].mu[index[i]] * axes[i].mu[index[i]];
-                    }
+                    double lambda = eigenvalue(index);
                     c[cIndex] -= ps.coefficient(0, index[0]) * ps.coefficient(1, index[1])
                         * ps.coefficient(2, index[2]) / (k * lambda);
                     weightMax = Math.max(weightMax, 1 / (k * lambda));
@@ -3485,10 +3488,7 @@ public final class TensorSolver implements SpatialSolver {
                 for (int cIndex = 0; cIndex < count; cIndex++) {
                     unflatten(cIndex, m, index);
                     int faceIndex = f.tableIndex(tb, index);
-                    double lambda = 0;
-                    for (int i = 0; i < d; i++) {
-                        lambda += axes[i].mu[index[i]] * axes[i].mu[index[i]];
-                    }
+                    double lambda = eigenvalue(index);
                     if (lambda == 0) {
                         continue; // the constant mode: the lags have mean zero
                     }
@@ -3592,10 +3592,7 @@ public final class TensorSolver implements SpatialSolver {
                 if (coef == 0) {
                     continue;
                 }
-                double lambda = 0;
-                for (int i = 0; i < d; i++) {
-                    lambda += axes[i].mu[index[i]] * axes[i].mu[index[i]];
-                }
+                double lambda = eigenvalue(index);
                 if (lambda == 0) {
                     continue; // the constant mode: Pi_2 has mean zero
                 }

@@ -125,20 +125,7 @@ class BoxPairSourceTest {
         // its error here is below 1e-12 for this analytic integrand)
         double[] lo = {0.3, 0.2, 0.2};
         double[] hi = {0.5, 0.4, 0.4};
-        GaussIntegrator[] rule = new GaussIntegrator[3];
-        for (int c = 0; c < 3; c++) {
-            rule[c] = new GaussIntegratorFactory().legendre(5, lo[c], hi[c]);
-        }
-        double mean = 0;
-        for (int i = 0; i < 5; i++) {
-            for (int j = 0; j < 5; j++) {
-                for (int l = 0; l < 5; l++) {
-                    mean += rule[0].getWeight(i) * rule[1].getWeight(j) * rule[2].getWeight(l)
-                        * exact.value(rule[0].getPoint(i), rule[1].getPoint(j), rule[2].getPoint(l), 0);
-                }
-            }
-        }
-        mean /= 0.2 * 0.2 * 0.2;
+        double mean = BoxPairSourceTest.gaussCellMean(exact, lo, hi, 5);
         assertWithin(mean, o.cellAverage(lo, hi, 0), limit, "mean over the cell");
     }
 
@@ -200,6 +187,24 @@ class BoxPairSourceTest {
     }
 
     /** The unit cube held at 0 on every face, k = rho c = 1, steady, with the given source of x, y, z. */
+    /** The mean of u(x, y, z, 0) over the cell [lo, hi] by an n-point Gauss-Legendre rule per axis. */
+    static double gaussCellMean(Expression exact, double[] lo, double[] hi, int n) {
+        GaussIntegrator[] rule = new GaussIntegrator[3];
+        for (int c = 0; c < 3; c++) {
+            rule[c] = new GaussIntegratorFactory().legendre(n, lo[c], hi[c]);
+        }
+        double mean = 0;
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                for (int l = 0; l < n; l++) {
+                    mean += rule[0].getWeight(i) * rule[1].getWeight(j) * rule[2].getWeight(l)
+                        * exact.value(rule[0].getPoint(i), rule[1].getPoint(j), rule[2].getPoint(l), 0);
+                }
+            }
+        }
+        return mean / ((hi[0] - lo[0]) * (hi[1] - lo[1]) * (hi[2] - lo[2]));
+    }
+
     static Problem heldUnitCube(String source) {
         Map<Side, BoundaryCondition> held = new EnumMap<>(Side.class);
         BoundaryCondition zero = new BoundaryCondition.Dirichlet(Expression.parse("0", "x", "y", "z", "t"));

@@ -16,8 +16,6 @@ import eigencheck.oracle.problem.Problem;
 import eigencheck.oracle.problem.Side;
 import java.util.EnumMap;
 import java.util.Map;
-import org.apache.commons.math3.analysis.integration.gauss.GaussIntegrator;
-import org.apache.commons.math3.analysis.integration.gauss.GaussIntegratorFactory;
 import org.junit.jupiter.api.Test;
 
 /** Boxes whose source couples x, y and z as one product F(x) G(y) H(z) (a spot heater, say). */
@@ -101,20 +99,7 @@ class BoxProductSourceTest {
         // its error for this exponential over a cell 0.2 wide is below 1e-15)
         double[] lo = {0.3, 0.2, 0.2};
         double[] hi = {0.5, 0.4, 0.4};
-        GaussIntegrator[] rule = new GaussIntegrator[3];
-        for (int c = 0; c < 3; c++) {
-            rule[c] = new GaussIntegratorFactory().legendre(6, lo[c], hi[c]);
-        }
-        double mean = 0;
-        for (int i = 0; i < 6; i++) {
-            for (int j = 0; j < 6; j++) {
-                for (int l = 0; l < 6; l++) {
-                    mean += rule[0].getWeight(i) * rule[1].getWeight(j) * rule[2].getWeight(l)
-                        * exact.value(rule[0].getPoint(i), rule[1].getPoint(j), rule[2].getPoint(l), 0);
-                }
-            }
-        }
-        mean /= 0.2 * 0.2 * 0.2;
+        double mean = BoxPairSourceTest.gaussCellMean(exact, lo, hi, 6);
         assertWithin(mean, o.cellAverage(lo, hi, 0), limit, "mean over the cell");
     }
 
